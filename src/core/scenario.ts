@@ -277,7 +277,8 @@ class Reader {
       return undefined;
     }
     if (!Number.isFinite(v)) {
-      this.add(field, v, `${text} (a finite number)`);
+      // Shown as text: JSON has no NaN/Infinity and would print them as null.
+      this.add(field, String(v), `${text} (a finite number)`);
       return undefined;
     }
     const low = range.minOpen ? v <= range.min : v < range.min;
