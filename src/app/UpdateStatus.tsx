@@ -6,17 +6,15 @@ export function UpdateStatus() {
   const { offlineReady, updateWaiting } = useSwStatus();
   if (!offlineReady && !updateWaiting) return null;
   return (
-    <div class="dm-sw-status" role="status" aria-live="polite" data-testid="sw-status">
+    <aside class="dm-sw-status" aria-label="Offline status" data-testid="sw-status">
+      <p class="dm-sw-status__text" role="status">
+        {updateWaiting ? "A new version is ready." : "Ready to work offline"}
+      </p>
       {updateWaiting ? (
-        <>
-          <span>A new version is ready.</span>
-          <button type="button" class="dm-sw-status__button" onClick={requestUpdate}>
-            Update available — reload
-          </button>
-        </>
-      ) : (
-        <span>Ready to work offline</span>
-      )}
-    </div>
+        <button type="button" class="dm-sw-status__button" onClick={requestUpdate}>
+          Update available — reload
+        </button>
+      ) : null}
+    </aside>
   );
 }

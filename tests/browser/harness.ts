@@ -10,10 +10,12 @@ import { startServer } from "../../scripts/serve.mjs";
 const REPO = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..");
 const DIST = join(REPO, "dist");
 
-/** Where browser tests write files for people to look at (screenshots); ignored by git. */
+/** Where browser tests write files for people to look at (screenshots); ignored by git. Created
+ * when this module loads, so `join(OUTPUT_DIR, "x.png")` can be written straight away. */
 export const OUTPUT_DIR = join(REPO, "tests", "output");
+mkdirSync(OUTPUT_DIR, { recursive: true });
 
-/** Creates OUTPUT_DIR if needed and returns it. */
+/** Creates OUTPUT_DIR if needed (e.g. after a clean) and returns it. */
 export function ensureOutputDir(): string {
   mkdirSync(OUTPUT_DIR, { recursive: true });
   return OUTPUT_DIR;
