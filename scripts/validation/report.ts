@@ -107,9 +107,23 @@ export function plainSentence(m: Metrics): string {
   return `On these 1956 measurements the default curves predict within a factor of two ${n}% of the time; ${bias}.`;
 }
 
+/**
+ * A second sentence about the farthest arcs, where a Gaussian plume with these curves does
+ * worst on this data; derived from the figures, so it stays true when they change.
+ */
+export function farthestArcSentence(groups: { distance_m: number; metrics: Metrics }[]): string {
+  const far = [...groups]
+    .filter((g) => g.metrics.count > 0)
+    .sort((a, b) => b.distance_m - a.distance_m)[0];
+  if (!far || far.metrics.fac2 === null || far.metrics.mg === null) return "";
+  const n = Math.round(far.metrics.fac2 * 100);
+  return `At ${far.distance_m} m, the farthest arcs, ${n}% are within a factor of two: the scatter grows with distance, so treat far reaches as rough.`;
+}
+
 // --- TypeScript literal writer (output formatted the way Biome formats it) -------------------
 
 const IDENT = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
+const LINE_WIDTH = 100; // biome.json formatter.lineWidth
 
 function literal(v: unknown, indent: string): string {
   if (v === null) return "null";
@@ -129,7 +143,14 @@ function literal(v: unknown, indent: string): string {
     if (entries.length === 0) return "{}";
     const inner = `${indent}  `;
     const body = entries
-      .map(([k, x]) => `${inner}${IDENT.test(k) ? k : JSON.stringify(k)}: ${literal(x, inner)},`)
+      .map(([k, x]) => {
+        const key = IDENT.test(k) ? k : JSON.stringify(k);
+        const one = `${inner}${key}: ${literal(x, inner)},`;
+        // Like Biome: a string too long for the line moves below its key, indented once more.
+        return typeof x === "string" && one.length > LINE_WIDTH
+          ? `${inner}${key}:\n${inner}  ${literal(x, inner)},`
+          : one;
+      })
       .join("\n");
     return `{\n${body}\n${indent}}`;
   }
@@ -166,6 +187,7 @@ export function aboutModule(result: CheckResult, modelVersion: string): string {
     briggs: schemeFigures(b),
     pasquillGifford: schemeFigures(pg),
     summary: plainSentence(b),
+    farthestArcs: farthestArcSentence(result.figures.briggs.byDistance),
   };
   return `/**
  * How the model compares with field measurements, for the "about the model" page.
@@ -200,8 +222,10 @@ export interface ModelCheck {
   arcsWithoutReading: number;
   briggs: ModelCheckScheme;
   pasquillGifford: ModelCheckScheme;
-  /** Plain-language summary for a responder. */
+  /** Plain-language summary for a responder (default curves). */
   summary: string;
+  /** Plain-language note on the farthest arcs (default curves). */
+  farthestArcs: string;
 }
 
 export const MODEL_CHECK: ModelCheck = ${literal(value, "")};

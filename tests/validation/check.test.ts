@@ -10,7 +10,12 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { type Estimator, runCheck } from "../../scripts/validation/check.ts";
 import type { ArcRecord, PrairieGrassData } from "../../scripts/validation/prairie-grass.ts";
-import { aboutModule, formatTable, plainSentence } from "../../scripts/validation/report.ts";
+import {
+  aboutModule,
+  farthestArcSentence,
+  formatTable,
+  plainSentence,
+} from "../../scripts/validation/report.ts";
 import { scatterSvg } from "../../scripts/validation/scatter-svg.ts";
 import type { Scenario } from "../../src/core/types.ts";
 
@@ -156,6 +161,18 @@ describe("plain-language sentence (direction from MG: over-prediction when MG < 
     expect(plainSentence(m(0.55, 2))).toContain("under-predict by about 50%"));
   it("says neither when MG is 1", () =>
     expect(plainSentence(m(1, 1))).toContain("neither over- nor under-predict"));
+});
+
+describe("farthest-arc sentence", () => {
+  it("reports FAC2 of the largest distance with any pairs", () => {
+    const m = (count: number, fac2: number) => ({ count, fac2, mg: 1, vg: 1, fb: 0, nmse: 0 });
+    const s = farthestArcSentence([
+      { distance_m: 400, metrics: m(10, 0.6) },
+      { distance_m: 800, metrics: m(4, 0.25) },
+      { distance_m: 100, metrics: m(10, 0.9) },
+    ]);
+    expect(s).toMatch(/^At 800 m, the farthest arcs, 25% are within a factor of two/);
+  });
 });
 
 describe("generated about-page module", () => {
