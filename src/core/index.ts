@@ -176,7 +176,6 @@ export function estimate(
   const prep = prepare(scenario);
   const { parsed, setup, warnings } = prep;
   const zr = parsed.receptorHeight;
-  const release = setup.release;
 
   const solutions: BandSolution[] = [];
   const bands: BandOutput[] = prep.limits.map((limit) => {

@@ -55,7 +55,7 @@ function erfcLarge(x: number): number {
 
 /** Clamp v to [lo, hi]. NaN stays NaN. */
 export function clamp(v: number, lo: number, hi: number): number {
-  return v < lo ? lo : v > hi ? hi : v;
+  return Math.min(hi, Math.max(lo, v));
 }
 
 /**
