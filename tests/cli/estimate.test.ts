@@ -198,7 +198,7 @@ describe.concurrent("a bad scenario exits 2 with one line naming the field, valu
 // Bad files and bad command lines
 // ---------------------------------------------------------------------------
 
-describe.concurrent("a file that cannot be used exits 2 with one plain line naming it", () => {
+describe.concurrent("a file or command line that cannot be used exits 2 with one plain line", () => {
   test(
     "a file that is not JSON",
     async () => {
@@ -258,6 +258,17 @@ describe.concurrent("a file that cannot be used exits 2 with one plain line nami
       const lines = expectCleanFailure(r);
       expect(lines).toHaveLength(1);
       expect(lines[0]).toMatch(/^usage: npm run --silent estimate -- FILE\.json/);
+    },
+    TIMEOUT_MS,
+  );
+
+  test(
+    "--help prints the usage line on stdout and succeeds",
+    async () => {
+      const r = await run(["--help"]);
+      expect(r.status).toBe(0);
+      expect(r.stderr).toBe("");
+      expect(r.stdout).toMatch(/^usage: npm run --silent estimate -- FILE\.json.*\n$/);
     },
     TIMEOUT_MS,
   );
