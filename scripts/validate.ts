@@ -140,4 +140,10 @@ function main(): number {
   return 0;
 }
 
+// Piping into `head` closes stdout early: stop quietly instead of printing a stack trace.
+process.stdout.on("error", (e: NodeJS.ErrnoException) => {
+  if (e.code === "EPIPE") process.exit(process.exitCode ?? 0);
+  throw e;
+});
+
 process.exitCode = main();

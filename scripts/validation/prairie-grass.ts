@@ -227,8 +227,7 @@ export function parseCorrections(text: string): CorrectionTable {
       if (slip) {
         amendments.push({
           ...slip,
-          reason:
-            "printed 0.09, a transcription slip for 0.9: every other factor lies in 0.85–1.00",
+          reason: "a transcription slip: every other factor lies in 0.85–1.00",
         });
         v = slip.used;
       }

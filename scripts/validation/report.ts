@@ -40,6 +40,10 @@ export function formatTable(result: CheckResult): string {
     "Model check: Project Prairie Grass (Barad 1958), predicted centreline vs measured arc maximum",
     `Runs with meteorology: ${result.runs}; arcs: ${result.arcsConsidered}; compared: ${result.compared.length}; left out: ${below} below 0.1 mg/m³, ${missing} with no reading`,
   );
+  out.push(
+    "Observed = largest reading on the arc × its Table 5.4 factor; arcs whose largest reading is below 0.1 mg/m³ (Barad 1958, Vol. I p. 77) or that have none are left out.",
+    "Predicted = centreline at 1.5 m, 10-minute average; class from σθ (EPA-454/R-99-005 Table 6-7); wind at 2 m; open country; no lid.",
+  );
   for (const a of result.amendments) {
     out.push(
       `Correction factor, experiment ${a.experiment} at ${a.distance_m} m: printed ${a.printed}, used ${a.used} (${a.reason})`,
