@@ -127,6 +127,26 @@ describe("estimate on the invented demo scenario", () => {
       const labels = (out.bands as { label: string }[]).map((b) => b.label);
       expect(labels).toEqual(demo.limits.map((l: { label: string }) => l.label));
 
+      // The golden output is not taken on trust: two figures recomputed by hand.
+      // ppm → mg/m³ at 24.45 L/mol (NIOSH Pocket Guide convention, 25 °C and 1 atm).
+      const bands = out.bands as { limit_mg_m3: number }[];
+      demo.limits.forEach((l: { value: number }, i: number) => {
+        expect(bands[i]?.limit_mg_m3).toBeCloseTo((l.value * 34.1) / 24.45, 9);
+      });
+      // Point (1000 m, 0, 1.5 m), 600 s average, inside the 900 s plateau (Palazzi F ≈ 1): the
+      // reflected Gaussian plume C = Q/(2π u σy σz)·[exp(−(z−H)²/2σz²) + exp(−(z+H)²/2σz²)]
+      // (Turner 1970, eq. 3.1 with ground reflection) with Briggs open-country class D
+      // σy = 0.08x(1+0.0001x)^-½, σz = 0.06x(1+0.0015x)^-½ (Hanna, Briggs & Hosker 1982);
+      // the 800 m lid adds nothing at σz ≈ 38 m.
+      const x = 1000;
+      const sy = (0.08 * x) / Math.sqrt(1 + 0.0001 * x);
+      const sz = (0.06 * x) / Math.sqrt(1 + 0.0015 * x);
+      const v =
+        Math.exp(-((1.5 - 2) ** 2) / (2 * sz * sz)) + Math.exp(-((1.5 + 2) ** 2) / (2 * sz * sz));
+      const handMgM3 = (500 / (2 * Math.PI * 3 * sy * sz)) * v * 1000;
+      const point = (out.points as { concentration_mg_m3: number }[])[0];
+      expect(Math.abs((point?.concentration_mg_m3 ?? 0) / handMgM3 - 1)).toBeLessThan(1e-3);
+
       if (process.env.UPDATE_GOLDEN === "1") {
         mkdirSync(dirname(GOLDEN), { recursive: true });
         writeFileSync(GOLDEN, r.stdout);
