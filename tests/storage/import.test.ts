@@ -113,10 +113,8 @@ describe("importing a backup", () => {
       T0,
       `<script>globalThis.${flag}=1</script><img src=x onerror="globalThis.${flag}=2">`,
     );
-    hostile.scenario.limits[0] = {
-      ...(hostile.scenario.limits[0] as never),
-      label: "javascript:alert(1)",
-    };
+    const firstLimit = hostile.scenario.limits[0];
+    if (firstLimit) firstLimit.label = "javascript:alert(1)";
     const summary = await s.importBackup(file([hostile]));
     expect(summary.added).toBe(1);
     expect(await s.get(hostile.id)).toEqual(hostile);

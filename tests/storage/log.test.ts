@@ -72,7 +72,8 @@ describe("LogStore", () => {
     expect(seen).toHaveLength(25);
     expect(new Set(seen).size).toBe(25);
     const times = await Promise.all(seen.map(async (id) => (await s.get(id))?.time_utc ?? ""));
-    for (let i = 1; i < times.length; i++) expect(times[i - 1] >= (times[i] as string)).toBe(true);
+    for (let i = 1; i < times.length; i++)
+      expect((times[i - 1] as string) >= (times[i] as string)).toBe(true);
     expect((await s.all()).map((e) => e.id)).toEqual(seen);
   });
 
