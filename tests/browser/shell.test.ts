@@ -129,10 +129,9 @@ describe("offline shell", () => {
           .first()
           .fill(String((Number.isFinite(current) && current > 0 ? current : 1) * 4));
         await expect.poll(() => reach.textContent(), { timeout: 10_000 }).not.toBe(before);
-        await annotate(
-          "offline estimate: Release rate changed and band-reach-0 changed",
-          "checked",
-        );
+        const note = `offline estimate checked: band-reach-0 "${before}" -> "${await reach.textContent()}"`;
+        console.info(`shell.test: ${note}`);
+        await annotate(note, "checked");
       } else {
         const note =
           'offline estimate NOT checked: no field labelled "Release rate" yet (estimate screen missing)';
