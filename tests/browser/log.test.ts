@@ -1,12 +1,14 @@
 // The estimate log in Debian's chromium against the built app: entries survive a reload, going
 // offline and back, a service-worker update, and closing the browser right after a write.
 // Run: npm run build && npx vitest run -c vitest.browser.config.ts tests/browser/log.test.ts
-import { appendFileSync, cpSync, mkdtempSync, rmSync } from "node:fs";
+import { appendFileSync, cpSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startServer } from "../../scripts/serve.mjs";
+import { CAUTION } from "../../src/core/caution.ts";
+import { expectValidFootprintFile } from "../geo/validate.ts";
 import { launchBrowser, startApp } from "./harness.ts";
 
 type App = Awaited<ReturnType<typeof startApp>>;
@@ -167,6 +169,121 @@ describe("the log in the browser", () => {
       await b.close();
       await server.close();
       rmSync(root, { recursive: true, force: true });
+    }
+  });
+
+  it("shares the footprint as a file (download here: headless chromium cannot share files) and logs it", async () => {
+    const b = await launchBrowser({ profileDir: profile() });
+    try {
+      const { page } = b;
+      await page.goto(app.url);
+      await page.getByRole("button", { name: "Demo" }).click();
+      const share = page.getByRole("button", { name: "Share footprint" }).first();
+      await expect.poll(() => share.isEnabled(), { timeout: 15_000 }).toBe(true);
+      const [download] = await Promise.all([page.waitForEvent("download"), share.click()]);
+      expect(download.suggestedFilename()).toMatch(/^driftmark-footprint-\d{8}-\d{6}\.geojson$/);
+      const fc = JSON.parse(readFileSync((await download.path()) as string, "utf8"));
+      expectValidFootprintFile(fc);
+      expect(fc.caution).toBe(CAUTION);
+      await expect.poll(() => shownCount(page)).toBe(1); // sharing logged the estimate
+    } finally {
+      await b.close();
+    }
+  });
+
+  it("imports 10,000 entries, renders only the visible rows, and reports rejected ones", async () => {
+    const b = await launchBrowser({ profileDir: profile() });
+    try {
+      const { page } = b;
+      await page.goto(app.url);
+      await logDemo(page, "template");
+      // Build a backup in the page from the logged entry: 10,000 copies an hour apart, plus one bad.
+      const texts = await page.evaluate(async () => {
+        const db: IDBDatabase = await new Promise((ok, no) => {
+          const r = indexedDB.open("driftmark");
+          r.onsuccess = () => ok(r.result);
+          r.onerror = () => no(r.error);
+        });
+        const all: Record<string, unknown>[] = await new Promise((ok) => {
+          const r = db.transaction("estimates").objectStore("estimates").getAll();
+          r.onsuccess = () => ok(r.result);
+        });
+        db.close();
+        // Keep each copy small (no points) so that 10,000 fit in the 20 MB limit.
+        const full = all[0] as Record<string, Record<string, unknown>>;
+        const { points: _p, ...scenario } = full.scenario as Record<string, unknown>;
+        const t = { ...full, scenario, results: { ...full.results, points: [] } };
+        const t0 = Date.UTC(2024, 0, 1);
+        const entries: unknown[] = [];
+        for (let i = 0; i < 10_000; i++) {
+          const d = new Date(t0 + i * 3_600_000).toISOString();
+          entries.push({
+            ...t,
+            id: `bulk-${i}`,
+            time_utc: d,
+            time_local: d.replace(".000Z", "Z"),
+            note: `bulk ${i}`,
+          });
+        }
+        const bad = { ...t, id: "bad-1", place: { lat: "north", lon: 8 } };
+        const wrap = (list: unknown[]) =>
+          JSON.stringify({
+            format: "driftmark-log",
+            version: 1,
+            exported_utc: new Date().toISOString(),
+            entries: list,
+          });
+        // Two files (each under 20 MB) that overlap by 2,000 entries.
+        return [wrap(entries.slice(0, 6000)), wrap([...entries.slice(4000), bad])];
+      });
+      const summary = page.getByTestId("import-summary");
+      const input = page.getByTestId("log-import");
+      for (const [i, text] of texts.entries()) {
+        expect(text.length).toBeLessThan(20 * 1024 * 1024);
+        const started = performance.now();
+        await input.setInputFiles({
+          name: `bulk-${i}.json`,
+          mimeType: "application/json",
+          buffer: Buffer.from(text),
+        });
+        const want =
+          i === 0
+            ? "Added 6000; already in the log 0; rejected 0"
+            : "Added 4000; already in the log 2000; rejected 1";
+        await expect
+          .poll(async () => (await summary.isVisible()) && (await summary.textContent()), {
+            timeout: 30_000,
+          })
+          .toContain(want)
+          .catch(async (e: unknown) => {
+            throw new Error(
+              `${String(e)}; status: ${await page.locator(".dm-log-status").textContent()}`,
+            );
+          });
+        // A figure to read, not a check (tests never assert on time).
+        console.log(`import ${i + 1}: ${Math.round(performance.now() - started)} ms`);
+      }
+      expect(await summary.textContent()).toContain("place.lat: must be a finite number");
+      await expect.poll(() => shownCount(page), { timeout: 30_000 }).toBe(10_001);
+      const rendered = await page.locator(".dm-log-row").count();
+      expect(rendered).toBeGreaterThan(0);
+      expect(rendered).toBeLessThan(40);
+      // Scroll to the end: the oldest entry is rendered there, still only a window of rows.
+      await page.getByTestId("log-window").evaluate((el) => {
+        el.scrollTop = el.scrollHeight;
+      });
+      await expect
+        .poll(() => page.locator(".dm-log-rowbtn", { hasText: "bulk 0" }).count())
+        .toBe(1);
+      expect(await page.locator(".dm-log-row").count()).toBeLessThan(40);
+      // Filter by text and by day.
+      await page.getByLabel("Filter by text").fill("bulk 9999");
+      await expect.poll(() => page.getByTestId("log-count").textContent()).toMatch(/^1 of 10001/);
+      await page.getByLabel("Filter by text").fill("");
+      await page.getByLabel("Day").fill("2024-01-02");
+      await expect.poll(() => page.getByTestId("log-count").textContent()).toMatch(/^24 of 10001/);
+    } finally {
+      await b.close();
     }
   });
 });
