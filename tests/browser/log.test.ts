@@ -4,6 +4,7 @@
 import { appendFileSync, cpSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import AxeBuilder from "@axe-core/playwright";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startServer } from "../../scripts/serve.mjs";
@@ -282,6 +283,45 @@ describe("the log in the browser", () => {
       await page.getByLabel("Filter by text").fill("");
       await page.getByLabel("Day").fill("2024-01-02");
       await expect.poll(() => page.getByTestId("log-count").textContent()).toMatch(/^24 of 10001/);
+    } finally {
+      await b.close();
+    }
+  });
+
+  it("has no axe-core violations in the log section (entry open, delete-all asked) and 44 px targets", async () => {
+    const b = await launchBrowser({ profileDir: profile() });
+    try {
+      const { page } = b;
+      await page.goto(app.url);
+      await logDemo(page, "<img src=x onerror=alert(1)> checked as text");
+      await page.locator(".dm-log-rowbtn").first().click();
+      await expect.poll(() => page.getByTestId("log-detail").isVisible()).toBe(true);
+      // The note is shown as text, not turned into an element.
+      expect(await page.locator(".dm-log img").count()).toBe(0);
+      expect(await page.getByTestId("log-detail").textContent()).toContain("<img src=x");
+      await page.getByRole("button", { name: "Delete all entries…" }).click();
+      for (const theme of ["day", "night"]) {
+        if (theme === "night") await page.getByRole("button", { name: "Night theme" }).click();
+        const result = await new AxeBuilder({ page }).include(".dm-log").analyze();
+        expect(
+          result.violations.map(
+            (v) => `${theme} ${v.id}: ${v.nodes.map((n) => n.target).join(" | ")}`,
+          ),
+        ).toEqual([]);
+      }
+      // WCAG 2.2 SC 2.5.5 (AAA) target size 44 × 44 CSS px, the project's rule for every control.
+      const small = await page
+        .locator(".dm-log button, .dm-log input:not(.dm-visually-hidden), .dm-log .button-link")
+        .evaluateAll((els) =>
+          els
+            .map((el) => ({ el, r: el.getBoundingClientRect() }))
+            .filter(({ r }) => r.width > 0 && (r.width < 44 || r.height < 44))
+            .map(
+              ({ el, r }) =>
+                `${el.textContent || el.id}: ${Math.round(r.width)}×${Math.round(r.height)}`,
+            ),
+        );
+      expect(small).toEqual([]);
     } finally {
       await b.close();
     }
