@@ -1,10 +1,177 @@
-// Placeholder until the estimate screen lands (issue 3, UI). Renders the caution only.
-import { CAUTION } from "../core/caution.ts";
+import { useEffect, useMemo, useReducer, useRef, useState } from "preact/hooks";
+import { centrelineProfile, estimate } from "../core/index.ts";
+import type { Scenario } from "../core/types.ts";
+import { AboutPage } from "./components/AboutPage.tsx";
+import { CautionBanner } from "./components/CautionBanner.tsx";
+import { CentrelineChart } from "./components/CentrelineChart.tsx";
+import { FootprintView } from "./components/FootprintView.tsx";
+import { LimitsSection } from "./components/LimitsSection.tsx";
+import { PlaceSection } from "./components/PlaceSection.tsx";
+import { ReleaseSection } from "./components/ReleaseSection.tsx";
+import { Results } from "./components/Results.tsx";
+import { Toolbar } from "./components/Toolbar.tsx";
+import { WeatherSection } from "./components/WeatherSection.tsx";
+import { DEMO_SCENARIO } from "./demo.ts";
+import { type Evaluation, evaluate } from "./evaluate.ts";
+import { groupProblems } from "./form.ts";
+import { LogSection } from "./log/LogSection.tsx";
+import { bandStyles } from "./palette.ts";
+import { makeProfile } from "./profile.ts";
+import {
+  initialScreen,
+  loadTheme,
+  loadUnits,
+  reduce,
+  saveScreen,
+  saveTheme,
+  saveUnits,
+  type Theme,
+} from "./store.ts";
+import { suggestionFor } from "./suggestion.ts";
+import type { UnitSystem } from "./units.ts";
+import "./style.css";
+
+const nowIso = () => new Date().toISOString();
+/** Pause after the last keystroke before recomputing (ms). */
+const TYPING_PAUSE_MS = 60;
 
 export function App() {
+  const [screen, dispatch] = useReducer(reduce, undefined, () => initialScreen(DEMO_SCENARIO));
+  const [theme, setTheme] = useState<Theme>(loadTheme);
+  const [units, setUnits] = useState<UnitSystem>(loadUnits);
+  const [view, setView] = useState<"main" | "about">("main");
+  const previous = useRef<Evaluation["last"]>(null);
+  const run = (form: typeof screen.form): Evaluation => {
+    const ev = evaluate(form, { timeIso: nowIso() }, estimate, previous.current);
+    previous.current = ev.last;
+    return ev;
+  };
+  const [evaluation, setEvaluation] = useState<Evaluation>(() => run(screen.form));
+  const firstRun = useRef(true);
+  // Recompute as the user types; a short pause coalesces keystrokes so typing never lags.
+  useEffect(() => {
+    if (firstRun.current) {
+      firstRun.current = false;
+      return;
+    }
+    const timer = setTimeout(() => setEvaluation(run(screen.form)), TYPING_PAUSE_MS);
+    return () => clearTimeout(timer);
+  }, [screen.form]);
+
+  useEffect(() => saveScreen(screen), [screen]);
+  useEffect(() => {
+    document.documentElement.dataset.theme = theme;
+    saveTheme(theme);
+  }, [theme]);
+  useEffect(() => saveUnits(units), [units]);
+
+  const last = evaluation.last;
+  const errors = groupProblems(evaluation.problems);
+  const styles = useMemo(
+    () => bandStyles(last?.output.bands.map((b) => b.limit_mg_m3) ?? []),
+    [last],
+  );
+  const profile = useMemo(() => {
+    if (!last) return null;
+    try {
+      return makeProfile(last.scenario, last.output, centrelineProfile);
+    } catch {
+      return null;
+    }
+  }, [last]);
+  const suggestion = useMemo(() => suggestionFor(screen.form, nowIso()), [screen.form]);
+  const loadScenario = (s: Scenario) => dispatch({ type: "load", scenario: s, origin: "user" });
+
+  if (view === "about") {
+    return (
+      <div class="app">
+        <CautionBanner onLimits={() => setView("main")} showingLimits={true} />
+        <AboutPage onBack={() => setView("main")} />
+      </div>
+    );
+  }
+  const src = last?.scenario.source;
+  const placeText = src
+    ? `Source at ${src.lat}° N, ${src.lon}° E.`
+    : "No place given: drawn relative to the source.";
+  const ongoing =
+    last?.scenario.release.kind === "continuous" && last.scenario.release.duration_s === undefined;
   return (
-    <main>
-      <p role="note">{CAUTION}</p>
-    </main>
+    <div class="app">
+      <CautionBanner onLimits={() => setView("about")} showingLimits={false} />
+      <main id="main">
+        <h1 class="app-title">Driftmark estimate</h1>
+        <Toolbar
+          theme={theme}
+          units={units}
+          onTheme={() => setTheme(theme === "day" ? "night" : "day")}
+          onUnits={() => setUnits(units === "metric" ? "us" : "metric")}
+          onDemo={() => dispatch({ type: "load", scenario: DEMO_SCENARIO, origin: "demo" })}
+          onClear={() => dispatch({ type: "clear" })}
+        />
+        {screen.origin === "demo" ? (
+          <p class="demo-mark" data-testid="demo-mark">
+            Invented demo scenario: not a real incident, chemical or limit values.
+          </p>
+        ) : screen.origin === "demo-edited" ? (
+          <p class="demo-mark" data-testid="demo-mark">
+            Started from the invented demo scenario: check every value.
+          </p>
+        ) : null}
+        <form class="inputs" onSubmit={(e) => e.preventDefault()} noValidate>
+          <ReleaseSection form={screen.form} dispatch={dispatch} errors={errors} />
+          <WeatherSection
+            form={screen.form}
+            dispatch={dispatch}
+            errors={errors}
+            suggestion={suggestion}
+          />
+          <LimitsSection form={screen.form} dispatch={dispatch} errors={errors} />
+          <PlaceSection form={screen.form} dispatch={dispatch} errors={errors} units={units} />
+        </form>
+        <section
+          class={`results-section${evaluation.stale ? " is-stale" : ""}`}
+          aria-labelledby="results-title"
+        >
+          <h2 id="results-title">Estimate</h2>
+          {evaluation.problems.length > 0 ? (
+            <div class="problems" role="alert">
+              <p>Fix the marked fields to update the estimate:</p>
+              <ul>
+                {evaluation.problems.map((p) => (
+                  <li key={`${p.field}-${p.message}`}>
+                    {p.field ? <a href={`#${p.field}`}>{p.message}</a> : p.message}
+                  </li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
+          {evaluation.stale ? (
+            <p class="stale-mark" data-testid="stale">
+              Out of date: showing the last valid estimate, not the inputs now on screen.
+            </p>
+          ) : null}
+          {last ? (
+            <>
+              <FootprintView
+                output={last.output}
+                styles={styles}
+                units={units}
+                placeText={placeText}
+              />
+              <Results output={last.output} units={units} ongoing={ongoing} styles={styles} />
+              {profile ? <CentrelineChart profile={profile} styles={styles} units={units} /> : null}
+            </>
+          ) : (
+            <p>Enter the release, weather and at least one limit to see the footprint.</p>
+          )}
+        </section>
+        <LogSection
+          scenario={evaluation.stale ? null : (last?.scenario ?? null)}
+          result={evaluation.stale ? null : (last?.output ?? null)}
+          onReopen={loadScenario}
+        />
+      </main>
+    </div>
   );
 }
