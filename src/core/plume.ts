@@ -35,6 +35,14 @@ export interface Plume {
   amplitude(x: number, y: number, z: number): number;
 }
 
+/**
+ * Distances between 0 and this (m) are evaluated at it. The point-source form diverges at the source;
+ * at distances far below any physical source size the fitted curves stop being numbers: the
+ * Pasquill–Gifford σy's tangent passes its pole below about 5 nm (class A), and below about
+ * 1e-150 m σy·σz underflows to 0 and C̄ becomes NaN. 1 mm changes nothing a responder can see.
+ */
+export const MIN_DISTANCE_M = 1e-3;
+
 /** Build the plume for averaging time `averaging` (s). */
 export function makePlume(setup: PlumeSetup, averaging: number): Plume {
   const rel = setup.release;
@@ -44,14 +52,16 @@ export function makePlume(setup: PlumeSetup, averaging: number): Plume {
   const u = setup.windSpeed;
   const H = setup.effectiveHeight;
   const lid = setup.mixingHeight;
-  const sy = (x: number) => sigmas(setup.scheme, setup.stability, setup.terrain, x).y * meander;
-  const sz = (x: number) => sigmas(setup.scheme, setup.stability, setup.terrain, x).z;
+  const at = (x: number) =>
+    sigmas(setup.scheme, setup.stability, setup.terrain, x > 0 ? Math.max(x, MIN_DISTANCE_M) : x);
+  const sy = (x: number) => at(x).y * meander;
+  const sz = (x: number) => at(x).z;
 
   const lidBlocks = lid !== null && H > lid;
 
   const concentration = (x: number, y: number, z: number): number => {
     if (!(x > 0) || lidBlocks) return 0;
-    const s = sigmas(setup.scheme, setup.stability, setup.terrain, x);
+    const s = at(x);
     const syE = s.y * meander;
     const szV = s.z;
     if (!(syE > 0) || !(szV > 0)) return 0;
@@ -65,7 +75,7 @@ export function makePlume(setup: PlumeSetup, averaging: number): Plume {
 
   const amplitude = (x: number, y: number, z: number): number => {
     if (!(x > 0) || lidBlocks) return 0;
-    const s = sigmas(setup.scheme, setup.stability, setup.terrain, x);
+    const s = at(x);
     const syE = s.y * meander;
     if (!(syE > 0) || !(s.z > 0)) return 0;
     const g = Math.exp(-(y * y) / (2 * syE * syE)) * verticalTerm(z, H, s.z, lid);

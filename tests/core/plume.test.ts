@@ -5,7 +5,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { durationFactor } from "../../src/core/averaging.ts";
-import { makePlume } from "../../src/core/plume.ts";
+import { MIN_DISTANCE_M, makePlume } from "../../src/core/plume.ts";
 import { briggsSigmaY, briggsSigmaZ, pgSigmaY, pgSigmaZ } from "../../src/core/sigma.ts";
 import type { PlumeSetup, Release, SigmaScheme, StabilityClass } from "../../src/core/types.ts";
 import { verticalTerm } from "../../src/core/vertical.ts";
@@ -178,6 +178,20 @@ describe("meander and shape", () => {
       { numRuns: 200 },
     );
     expect(p.concentration(0, 0, 1.5)).toBe(0);
+  });
+
+  it("stays a finite positive number right at the source (0 < x < 1 mm evaluated at 1 mm)", () => {
+    // Found by the property test: at x = 1.5e-323 m σy·σz underflowed and C̄ was NaN; below ~5 nm
+    // the Pasquill–Gifford σy tangent passes its pole (A: c − d·ln x_km reaches 90° at 5e-12 km).
+    for (const scheme of ["briggs", "pasquill-gifford"] as const) {
+      for (const c of ["A", "D", "F"] as const) {
+        const p = makePlume(setup({ release: ongoing(10), c, scheme }), 600);
+        const at1mm = p.concentration(MIN_DISTANCE_M, 0, 0);
+        expect(Number.isFinite(at1mm) && at1mm > 0).toBe(true);
+        for (const x of [5e-324, 1e-200, 1e-9]) expect(p.concentration(x, 0, 0)).toBe(at1mm);
+        expect(pgSigmaY("A", 1e-9)).toBeLessThan(0); // the fit itself is meaningless there (94° > 90°)
+      }
+    }
   });
 
   it("gives nothing on the ground for a release above the lid", () => {
