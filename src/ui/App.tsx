@@ -64,6 +64,8 @@ export function App() {
     saveTheme(theme);
   }, [theme]);
   useEffect(() => saveUnits(units), [units]);
+  // A new view starts at its top.
+  useEffect(() => window.scrollTo(0, 0), [view]);
 
   const last = evaluation.last;
   const errors = groupProblems(evaluation.problems);

@@ -4,9 +4,11 @@
  * Pure apart from the `estimate` function passed in.
  */
 import { ScenarioError } from "../core/errors.ts";
+import { parseScenario } from "../core/scenario.ts";
 import type { EstimateOutput, Scenario } from "../core/types.ts";
 import {
   type BuildContext,
+  buildForChecking,
   buildScenario,
   type FieldProblem,
   type FormState,
@@ -35,7 +37,13 @@ export function evaluate(
   previous: Valid | null,
 ): Evaluation {
   const built = buildScenario(form, ctx);
-  if (!built.ok) return { last: previous, stale: previous !== null, problems: built.problems };
+  if (!built.ok) {
+    return {
+      last: previous,
+      stale: previous !== null,
+      problems: withCoreChecks(form, ctx, built.problems),
+    };
+  }
   try {
     const output = estimate(built.scenario);
     return { last: { scenario: built.scenario, output }, stale: false, problems: [] };
@@ -52,5 +60,26 @@ export function evaluate(
             },
           ];
     return { last: previous, stale: previous !== null, problems };
+  }
+}
+
+/**
+ * While some field cannot be read, still let the core check all the others, so
+ * every problem shows at once (a negative rate is marked even while the wind
+ * direction is half typed). Core problems on fields the form already flagged are dropped.
+ */
+function withCoreChecks(form: FormState, ctx: BuildContext, own: FieldProblem[]): FieldProblem[] {
+  const checked = buildForChecking(form, ctx);
+  if (!checked.scenario) return own;
+  try {
+    parseScenario(checked.scenario);
+    return own;
+  } catch (err) {
+    if (!(err instanceof ScenarioError)) return own;
+    const flagged = new Set(own.map((p) => p.field));
+    return [
+      ...own,
+      ...problemsFromCore(err.problems).filter((p) => p.field && !flagged.has(p.field)),
+    ];
   }
 }

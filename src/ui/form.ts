@@ -241,17 +241,41 @@ function quote(text: string): string {
  * Only parsing and unit conversion happen here; every range check is the core's.
  */
 export function buildScenario(form: FormState, ctx: BuildContext): BuildResult {
+  const r = build(form, ctx, false);
+  return r.problems.length === 0 && r.scenario
+    ? { ok: true, scenario: r.scenario, problems: [] }
+    : { ok: false, scenario: null, problems: r.problems };
+}
+
+/**
+ * Like `buildScenario`, but a field that cannot be read is replaced by a harmless
+ * stand-in (1, or 0° for the wind direction) so the core can still check every
+ * other field. The stand-in scenario is for validation only, never for figures.
+ */
+export function buildForChecking(
+  form: FormState,
+  ctx: BuildContext,
+): { scenario: Scenario | null; problems: FieldProblem[] } {
+  return build(form, ctx, true);
+}
+
+function build(
+  form: FormState,
+  ctx: BuildContext,
+  lenient: boolean,
+): { scenario: Scenario | null; problems: FieldProblem[] } {
   const problems: FieldProblem[] = [];
+  const standIn = (required: boolean) => (lenient && required ? 1 : undefined);
 
   const num = (id: string, text: string, required: boolean): number | undefined => {
     const v = parseNumber(text);
     if (v === undefined) {
       problems.push({ field: id, message: `${fieldLabel(id)}: ${quote(text)} is not a number` });
-      return undefined;
+      return standIn(required);
     }
     if (v === null) {
       if (required) problems.push({ field: id, message: `${fieldLabel(id)}: enter a value` });
-      return undefined;
+      return standIn(required);
     }
     return v;
   };
@@ -297,13 +321,14 @@ export function buildScenario(form: FormState, ctx: BuildContext): BuildResult {
 
   const ws = num(FIELD.windSpeed, form.windSpeed, true);
   const wh = num(FIELD.windHeight, form.windHeight, false);
-  const dir = parseDirection(form.windFrom);
-  if (dir === undefined) {
+  const typedDir = parseDirection(form.windFrom);
+  const dir = typeof typedDir === "number" ? typedDir : lenient ? 0 : typedDir;
+  if (typedDir === undefined) {
     problems.push({
       field: FIELD.windFrom,
       message: `Wind from: ${quote(form.windFrom)} is not degrees or a compass point (N, NNE … NNW)`,
     });
-  } else if (dir === null) {
+  } else if (typedDir === null) {
     problems.push({
       field: FIELD.windFrom,
       message: "Wind from: enter degrees or a compass point",
@@ -312,14 +337,15 @@ export function buildScenario(form: FormState, ctx: BuildContext): BuildResult {
   const swing = num(FIELD.windSwing, form.windSwing, false);
   const nz = num(FIELD.nearZone, form.nearZone, false);
   const mix = num(FIELD.mixingHeight, form.mixingHeight, false);
-  const mw = num(FIELD.molecularWeight, form.molecularWeight, false);
   const usesPpm = form.limits.some((l) => l.unit === "ppm");
+  let mw = num(FIELD.molecularWeight, form.molecularWeight, false);
   if (usesPpm && mw === undefined && parseNumber(form.molecularWeight) === null) {
     problems.push({
       field: FIELD.molecularWeight,
       message: "Molecular weight: needed to convert ppm limits (g/mol)",
     });
   }
+  if (usesPpm && mw === undefined && lenient) mw = 1;
 
   if (form.limits.length === 0) {
     problems.push({ field: FIELD.limits, message: "Limits: add at least one limit" });
@@ -355,8 +381,8 @@ export function buildScenario(form: FormState, ctx: BuildContext): BuildResult {
     });
   }
 
-  if (problems.length > 0 || !release || ws === undefined || dir == null) {
-    return { ok: false, scenario: null, problems };
+  if ((problems.length > 0 && !lenient) || !release || ws === undefined || dir == null) {
+    return { scenario: null, problems };
   }
   const weather: Scenario["weather"] = {
     wind_speed_m_s: speedToMPerS(ws, form.windSpeedUnit),
@@ -377,7 +403,7 @@ export function buildScenario(form: FormState, ctx: BuildContext): BuildResult {
     ...(nz !== undefined ? { near_zone_m: nz } : {}),
     ...(latV !== undefined && lonV !== undefined ? { source: { lat: latV, lon: lonV } } : {}),
   };
-  return { ok: true, scenario, problems: [] };
+  return { scenario, problems };
 }
 
 /** Map one core problem path (e.g. `limits[1].value`) to the input id that holds it. */

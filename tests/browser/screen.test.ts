@@ -140,6 +140,41 @@ describe("filling the labelled fields", () => {
   });
 });
 
+describe("unit system and place", () => {
+  it("shows figures in US customary units when asked, and remembers the choice", async () => {
+    const { page } = browser;
+    await page.getByRole("button", { name: "Demo" }).click();
+    const demo = (await import("../../examples/demo.json", { with: { type: "json" } }))
+      .default as unknown as Scenario;
+    const out = estimate(demo);
+    await page.getByRole("button", { name: "US units" }).click();
+    for (const [i, band] of out.bands.entries()) {
+      await expect
+        .poll(() => page.getByTestId(`band-reach-${i}`).textContent())
+        .toBe(formatReach(band.reach_m, "us"));
+    }
+    await page.reload();
+    await expect
+      .poll(() => page.getByTestId("band-reach-0").textContent())
+      .toBe(formatReach(out.bands[0]?.reach_m ?? null, "us"));
+    await page.getByRole("button", { name: "US units" }).click();
+    await expect
+      .poll(() => page.getByTestId("band-reach-0").textContent())
+      .toBe(formatReach(out.bands[0]?.reach_m ?? null, "metric"));
+  });
+
+  it("fills Latitude and Longitude from 'Use my position' and shows its accuracy", async () => {
+    const { page, context } = browser;
+    await context.grantPermissions(["geolocation"], { origin: new URL(app.url).origin });
+    await context.setGeolocation({ latitude: 46.5, longitude: 7.25, accuracy: 35 });
+    await page.getByRole("button", { name: "Use my position" }).click();
+    await expect.poll(() => label(page, "Latitude").inputValue()).toBe("46.5");
+    expect(await label(page, "Longitude").inputValue()).toBe("7.25");
+    // 35 m, rounded up to two significant figures: "35 m".
+    await expect.poll(() => page.getByText("accurate to about 35 m").count()).toBe(1);
+  });
+});
+
 describe("accessibility and reach", () => {
   it("has no axe-core violations on the main screen in the day theme", async () => {
     const { page } = browser;
@@ -177,7 +212,13 @@ describe("accessibility and reach", () => {
       return Array.from(document.querySelectorAll<HTMLElement>(sel))
         .filter((el) => el.getClientRects().length > 0)
         .map((el) => {
-          const r = el.getBoundingClientRect();
+          // A visually hidden input (1 px, e.g. a file picker) is operated through its label.
+          const own = el.getBoundingClientRect();
+          const viaLabel =
+            el instanceof HTMLInputElement && own.width <= 1 && own.height <= 1
+              ? el.labels?.[0]
+              : null;
+          const r = (viaLabel ?? el).getBoundingClientRect();
           return {
             what: `${el.tagName.toLowerCase()}#${el.id || el.textContent?.trim()}`,
             w: r.width,

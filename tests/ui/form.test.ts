@@ -220,3 +220,16 @@ describe("formFromScenario", () => {
     expect(b).toEqual(a);
   });
 });
+
+describe("every problem at once", () => {
+  it("marks a negative rate even while another field cannot be read yet", () => {
+    const ev = evaluate({ ...filled(), rate: "-5", windFrom: "xyz" }, ctx, estimate, null);
+    const fields = ev.problems.map((p) => p.field);
+    expect(fields).toContain("wind-from");
+    expect(fields).toContain("rate");
+    expect(ev.problems.find((p) => p.field === "rate")?.message).toMatch(/^Release rate: /);
+    // A field the form already flagged gets no second, stand-in-based message from the core.
+    const two = evaluate({ ...filled(), rate: "abc" }, ctx, estimate, null);
+    expect(two.problems.filter((p) => p.field === "rate")).toHaveLength(1);
+  });
+});

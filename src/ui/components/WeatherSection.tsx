@@ -42,7 +42,9 @@ export function WeatherSection({
     ? form.stability === "auto"
       ? `Using ${suggestion.stability} (suggested): ${suggestion.reason}`
       : `Suggested ${suggestion.stability}: ${suggestion.reason} You chose ${form.stability}.`
-    : "A class is suggested once wind speed and sky are valid.";
+    : form.sky === "sun"
+      ? "A class is suggested once the wind speed and the place (for the sun's height) are valid."
+      : "A class is suggested once the wind speed is valid.";
   return (
     <fieldset class="section">
       <legend>Weather</legend>
