@@ -136,3 +136,6 @@ export function bundleReport(dist: string): BundleReport {
 
 export const REPO = resolve(dirname(new URL(import.meta.url).pathname), "..");
 export const DIST = join(REPO, "dist");
+
+/** Issue 5 budget: app JS of every chunk the first screen loads, gzip bytes (35 kB). */
+export const FIRST_SCREEN_JS_GZIP_BUDGET = 35_000;
