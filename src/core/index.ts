@@ -5,7 +5,6 @@
  */
 import { footprintGeoJSON } from "../geo/geojson.ts";
 import { CAUTION, MODEL_VERSION } from "./caution.ts";
-import { ScenarioError } from "./errors.ts";
 import { type BandSolution, SCAN_MAX_M, solveBand } from "./footprint.ts";
 import { makePlume, type Plume } from "./plume.ts";
 import { plumeRise } from "./rise.ts";
@@ -21,7 +20,6 @@ import type {
   PlumeSetup,
   PointOutput,
   Scenario,
-  ScenarioProblem,
   StabilityClass,
   Warning,
   WarningCode,
@@ -54,7 +52,6 @@ export interface Prepared {
 /** Validate the scenario and work out the weather, heights and limits. Throws ScenarioError. */
 export function prepare(raw: unknown): Prepared {
   const parsed = parseScenario(raw);
-  crossCheck(parsed);
   const warnings: Warning[] = [];
 
   let stability: StabilityClass;
@@ -331,29 +328,6 @@ function bandWarnings(
       label,
     );
   }
-}
-
-function crossCheck(p: ParsedScenario): void {
-  const problems: ScenarioProblem[] = [];
-  if (p.mixingHeight !== null) {
-    if (p.receptorHeight >= p.mixingHeight) {
-      problems.push({
-        field: "receptor_height_m",
-        value: p.receptorHeight,
-        message: `must be below the mixing height (${p.mixingHeight} m)`,
-      });
-    }
-    p.points.forEach((pt, i) => {
-      if (pt.z >= (p.mixingHeight as number)) {
-        problems.push({
-          field: `points[${i}].z_m`,
-          value: pt.z,
-          message: `must be below the mixing height (${p.mixingHeight} m)`,
-        });
-      }
-    });
-  }
-  if (problems.length > 0) throw new ScenarioError(problems);
 }
 
 function warn(list: Warning[], code: WarningCode, message: string, limit?: string): void {

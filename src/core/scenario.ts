@@ -604,6 +604,35 @@ export function parseScenario(raw: unknown): ParsedScenario {
     }
   });
 
+  // --- checks across fields ----------------------------------------------------
+  // Bands, warnings and point results are matched to their limit by label.
+  const seen = new Map<string, number>();
+  for (const [i, l] of limits.entries()) {
+    const prev = seen.get(l.label);
+    if (prev !== undefined) {
+      rd.add(
+        `limits[${i}].label`,
+        l.label,
+        `must differ from every other limit's label (limits[${prev}] has it too)`,
+      );
+    } else seen.set(l.label, i);
+  }
+  // The reflection between ground and lid describes the layer below the lid only.
+  if (typeof mixingHeight === "number") {
+    if (typeof receptorHeight === "number" && receptorHeight >= mixingHeight) {
+      rd.add(
+        "receptor_height_m",
+        receptorHeight,
+        `must be below the mixing height (${mixingHeight} m)`,
+      );
+    }
+    rawPoints?.forEach((item, i) => {
+      if (isObject(item) && typeof item.z_m === "number" && item.z_m >= mixingHeight) {
+        rd.add(`points[${i}].z_m`, item.z_m, `must be below the mixing height (${mixingHeight} m)`);
+      }
+    });
+  }
+
   if (rd.problems.length > 0) throw new ScenarioError(rd.problems);
 
   // With no problems every value below is defined; the checks narrow the types.

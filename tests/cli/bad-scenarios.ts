@@ -55,6 +55,11 @@ export const BAD_CASES: BadCase[] = [
   { rule: "unknown top-level field (misspelt)", edit: (s) => { s.limit = []; }, field: "limit", value: [], allowed: "not a known field", cli: true },
   { rule: "unknown nested field", edit: (s) => { s.weather.wind_dir = 250; }, field: "weather.wind_dir", value: 250, allowed: "allowed: wind_speed_m_s" },
 
+  // --- checks across fields -----------------------------------------------------
+  { rule: "two limits with the same label", edit: (s) => { s.limits[1].label = s.limits[0].label; }, field: "limits[1].label", value: "Limit A (invented)", allowed: "must differ from every other limit's label", cli: true },
+  { rule: "receptor at or above the mixing height", edit: (s) => { s.weather.mixing_height_m = 40; s.receptor_height_m = 50; }, field: "receptor_height_m", value: 50, allowed: "below the mixing height (40 m)", cli: true },
+  { rule: "point at or above the mixing height", edit: (s) => { s.weather.mixing_height_m = 40; s.points[0].z_m = 40; }, field: "points[0].z_m", value: 40, allowed: "below the mixing height (40 m)" },
+
   // --- release -----------------------------------------------------------------
   { rule: "release missing", edit: (s) => { delete s.release; }, field: "release", value: undefined, allowed: "is required", cli: true },
   { rule: "release not an object", edit: (s) => { s.release = 500; }, field: "release", value: 500, allowed: "must be an object" },
