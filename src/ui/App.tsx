@@ -161,7 +161,13 @@ export function App() {
                 units={units}
                 placeText={placeText}
               />
-              <Results output={last.output} units={units} ongoing={ongoing} styles={styles} />
+              <Results
+                output={last.output}
+                units={units}
+                ongoing={ongoing}
+                styles={styles}
+                limits={last.scenario.limits}
+              />
               {profile ? <CentrelineChart profile={profile} styles={styles} units={units} /> : null}
             </>
           ) : (

@@ -3,7 +3,7 @@
  * Rounding is chosen so a shown figure never makes the hazard look smaller:
  * reach, width and area round up; start and arrival round down; clearing rounds up.
  */
-import type { BandOutput, Warning } from "../core/types.ts";
+import type { BandOutput, ScenarioLimit, Warning } from "../core/types.ts";
 import {
   formatArea,
   formatConcentration,
@@ -25,7 +25,16 @@ export interface Figure {
   value: string;
 }
 
-export function bandFigures(b: BandOutput, system: UnitSystem, ongoing: boolean): Figure[] {
+/**
+ * The figures of one band. `limit` is the limit as entered (to show a ppm value
+ * beside its mg/m³ equivalent); without it only mg/m³ is shown.
+ */
+export function bandFigures(
+  b: BandOutput,
+  system: UnitSystem,
+  ongoing: boolean,
+  limit?: ScenarioLimit,
+): Figure[] {
   const rows: Figure[] = [{ key: "reach", label: "Reach", value: formatReach(b.reach_m, system) }];
   if (b.reach_m !== null) {
     if (b.max_width_m !== null) {
@@ -66,7 +75,11 @@ export function bandFigures(b: BandOutput, system: UnitSystem, ongoing: boolean)
   rows.push({
     key: "limit",
     label: "Limit",
-    value: `${formatConcentration(b.limit_mg_m3)} over ${formatDuration(b.averaging_s)}`,
+    value: `${
+      limit?.unit === "ppm"
+        ? `${limit.value} ppm (${formatConcentration(b.limit_mg_m3)})`
+        : formatConcentration(b.limit_mg_m3)
+    } averaged over ${formatDuration(b.averaging_s)}`,
   });
   return rows;
 }
@@ -90,4 +103,9 @@ export function splitWarnings(
 export function stabilityWords(cls: string, reason: string): string {
   if (/^given/i.test(reason)) return `Stability class ${cls}, as entered.`;
   return `Stability class ${cls}, suggested: ${reason}`;
+}
+
+/** The near-zone line shown with every result. */
+export function nearZoneWords(radiusM: number, system: UnitSystem): string {
+  return `Near zone: within ${formatDistance(radiusM, system, "up")} of the source the model does not hold and the hazard is highest. Treat it as dangerous whatever the bands show.`;
 }

@@ -276,9 +276,37 @@ export function headingVector(headingDeg: number): [number, number] {
   return [Math.sin(headingDeg * RAD), -Math.cos(headingDeg * RAD)];
 }
 
-/** Where a range ring's distance label goes: on the ring, toward the upper right (px). */
-export function ringLabelAt(sx: number, sy: number, radiusPx: number): [number, number] {
-  return [sx + radiusPx * Math.SQRT1_2 + 3, sy - radiusPx * Math.SQRT1_2 - 3];
+/**
+ * Where a range ring's distance label goes (px): on the ring, square to the
+ * plume on whichever side is more northerly (up on screen), where bands are
+ * narrow and rarely cover it.
+ */
+export function ringLabelAt(
+  sx: number,
+  sy: number,
+  radiusPx: number,
+  headingDeg: number,
+): [number, number] {
+  const left = (headingDeg - 90) * RAD;
+  const right = (headingDeg + 90) * RAD;
+  const b = Math.cos(left) >= Math.cos(right) ? left : right;
+  return [sx + radiusPx * Math.sin(b) + 3, sy - radiusPx * Math.cos(b) - 3];
+}
+
+/**
+ * Whether a ring label at (x, y) px is clear of the drawing's edges and of the
+ * two corner marks (wind dial top left, north arrow top right, each `cornerPx` square).
+ */
+export function ringLabelFits(
+  x: number,
+  y: number,
+  width: number,
+  height: number,
+  cornerPx = 80,
+): boolean {
+  if (x < 4 || x > width - 40 || y < 14 || y > height - 30) return false;
+  if (y < cornerPx && (x < cornerPx || x > width - cornerPx / 2 - 20)) return false;
+  return true;
 }
 
 export interface WindArrow {

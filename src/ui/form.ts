@@ -44,7 +44,6 @@ export interface FormState {
   kind: "continuous" | "instantaneous";
   rate: string;
   rateUnit: RateUnit;
-  ongoing: boolean;
   duration: string;
   durationUnit: TimeUnit;
   mass: string;
@@ -159,7 +158,6 @@ export function initialForm(): FormState {
     kind: "continuous",
     rate: "",
     rateUnit: "kg/s",
-    ongoing: true,
     duration: "",
     durationUnit: "min",
     mass: "",
@@ -303,8 +301,9 @@ function build(
   };
   if (form.kind === "continuous") {
     const rate = num(FIELD.rate, form.rate, true);
-    const dur = form.ongoing ? undefined : num(FIELD.duration, form.duration, true);
-    if (rate !== undefined && (form.ongoing || dur !== undefined)) {
+    // An empty duration means an ongoing release.
+    const dur = num(FIELD.duration, form.duration, false);
+    if (rate !== undefined && (parseNumber(form.duration) === null || dur !== undefined)) {
       release = {
         kind: "continuous",
         rate_g_s: rateToGPerS(rate, form.rateUnit),
@@ -471,7 +470,6 @@ export function formFromScenario(s: Scenario): FormState {
     const kgS = rateFromGPerS(r.rate_g_s, "kg/s");
     f.rateUnit = kgS >= 0.1 ? "kg/s" : "g/s";
     f.rate = tidy(rateFromGPerS(r.rate_g_s, f.rateUnit));
-    f.ongoing = r.duration_s === undefined;
     if (r.duration_s !== undefined) {
       f.durationUnit = "min";
       f.duration = tidy(timeFromS(r.duration_s, "min"));

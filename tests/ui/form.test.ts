@@ -90,10 +90,7 @@ describe("buildScenario", () => {
     if (a.ok && a.scenario.release.kind === "instantaneous") {
       expect(a.scenario.release.mass_g).toBeCloseTo(4535.9237, 9);
     }
-    const b = buildScenario(
-      { ...filled(), ongoing: false, duration: "15", durationUnit: "min" },
-      ctx,
-    );
+    const b = buildScenario({ ...filled(), duration: "15", durationUnit: "min" }, ctx);
     expect(b.ok && b.scenario.release.kind === "continuous" && b.scenario.release.duration_s).toBe(
       900,
     );

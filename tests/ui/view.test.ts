@@ -26,6 +26,8 @@ import {
   niceLength,
   project,
   rangeRings,
+  ringLabelAt,
+  ringLabelFits,
   toNorthUp,
   wrapLabel,
 } from "../../src/ui/footprint-view.ts";
@@ -246,7 +248,16 @@ describe("band figures", () => {
     expect(f.start).toBeUndefined(); // 1.8 m: the band starts at the source
     expect(f.arrives).toBe("2 min after release start");
     expect(f.clears).toBe("18 min after release start");
-    expect(f.limit).toBe("28 mg/m³ over 30 min");
+    expect(f.limit).toBe("28 mg/m³ averaged over 30 min");
+    const ppm = bandFigures(BAND, "metric", false, {
+      label: "Tier",
+      value: 20,
+      unit: "ppm",
+      averaging_s: 1800,
+    });
+    expect(ppm.find((x) => x.key === "limit")?.value).toBe(
+      "20 ppm (28 mg/m³) averaged over 30 min",
+    );
   });
 
   it("shows a start for an elevated release's gap, and an ongoing release that never clears", () => {
@@ -282,5 +293,26 @@ describe("band figures", () => {
   it("words the stability line", () => {
     expect(stabilityWords("D", "Given: class D")).toBe("Stability class D, as entered.");
     expect(stabilityWords("F", "clear night, light wind")).toMatch(/suggested: clear night/);
+  });
+});
+
+describe("range-ring labels", () => {
+  it("sit on the ring, square to the plume, on the northern side", () => {
+    // Plume toward the east: the northern side is straight up from the source.
+    const [x, y] = ringLabelAt(100, 100, 50, 90);
+    expect(x).toBeCloseTo(103, 9);
+    expect(y).toBeCloseTo(47, 9);
+    // Plume toward the west: still the northern side.
+    const [, y2] = ringLabelAt(100, 100, 50, 270);
+    expect(y2).toBeCloseTo(47, 9);
+  });
+});
+
+describe("ring labels stay readable", () => {
+  it("are left out under the corner marks and at the edges", () => {
+    expect(ringLabelFits(180, 180, 360, 360)).toBe(true);
+    expect(ringLabelFits(20, 20, 360, 360)).toBe(false); // wind dial
+    expect(ringLabelFits(340, 30, 360, 360)).toBe(false); // north arrow
+    expect(ringLabelFits(180, 355, 360, 360)).toBe(false); // bottom edge
   });
 });

@@ -39,7 +39,7 @@ export interface TextFieldProps<U extends string> {
   value: string;
   onInput: (v: string) => void;
   errors?: readonly string[] | undefined;
-  hint?: string;
+  hint?: string | undefined;
   /** Numeric keyboard on phones (no minus sign on some): set false where negatives are normal. */
   decimal?: boolean;
   placeholder?: string;

@@ -10,6 +10,7 @@ import {
   project,
   rangeRings,
   ringLabelAt,
+  ringLabelFits,
   ringPath,
   ringToNorthUp,
   windArrow,
@@ -75,18 +76,19 @@ export function FootprintView({
           </marker>
         </defs>
         <rect x="0" y="0" width={W} height={H} class="map-bg" />
-        {rings.map((r) => (
-          <g key={r.m} class="range-ring">
-            <circle cx={sx} cy={sy} r={r.m / view.mPerPx} />
-            <text
-              x={ringLabelAt(sx, sy, r.m / view.mPerPx)[0]}
-              y={ringLabelAt(sx, sy, r.m / view.mPerPx)[1]}
-              class="ring-label"
-            >
-              {r.label}
-            </text>
-          </g>
-        ))}
+        {rings.map((r) => {
+          const [lx, ly] = ringLabelAt(sx, sy, r.m / view.mPerPx, fp.heading_deg);
+          return (
+            <g key={r.m} class="range-ring">
+              <circle cx={sx} cy={sy} r={r.m / view.mPerPx} />
+              {ringLabelFits(lx, ly, W, H) ? (
+                <text x={lx} y={ly} class="ring-label">
+                  {r.label}
+                </text>
+              ) : null}
+            </g>
+          );
+        })}
         {drawOrder.map(({ b, i, style }) => {
           const swept = ringToNorthUp(b.swept, fp.heading_deg);
           const outline = ringToNorthUp(b.outline, fp.heading_deg);

@@ -58,28 +58,22 @@ export function ReleaseSection({ form, dispatch, errors }: SectionProps) {
               onUnit: set("rateUnit"),
             }}
           />
-          <CheckField
-            id="ongoing"
-            label="Ongoing (no known end)"
-            checked={form.ongoing}
-            onChange={set("ongoing")}
+          <TextField
+            id={FIELD.duration}
+            label="Duration"
+            value={form.duration}
+            onInput={set("duration")}
+            errors={errors[FIELD.duration]}
+            hint={form.duration.trim() === "" ? "Empty: ongoing, no known end." : undefined}
+            placeholder="ongoing"
+            unitPart={{
+              unitId: "duration-unit",
+              unitLabel: "Time unit",
+              unit: form.durationUnit,
+              units: TIME_OPTIONS,
+              onUnit: set("durationUnit"),
+            }}
           />
-          {form.ongoing ? null : (
-            <TextField
-              id={FIELD.duration}
-              label="Duration"
-              value={form.duration}
-              onInput={set("duration")}
-              errors={errors[FIELD.duration]}
-              unitPart={{
-                unitId: "duration-unit",
-                unitLabel: "Time unit",
-                unit: form.durationUnit,
-                units: TIME_OPTIONS,
-                onUnit: set("durationUnit"),
-              }}
-            />
-          )}
         </>
       ) : (
         <TextField

@@ -1,5 +1,5 @@
-import type { EstimateOutput, Warning } from "../../core/types.ts";
-import { bandFigures, splitWarnings, stabilityWords } from "../figures.ts";
+import type { EstimateOutput, ScenarioLimit, Warning } from "../../core/types.ts";
+import { bandFigures, nearZoneWords, splitWarnings, stabilityWords } from "../figures.ts";
 import type { BandStyle } from "../palette.ts";
 import type { UnitSystem } from "../units.ts";
 
@@ -39,7 +39,9 @@ export function Results({
   units,
   ongoing,
   styles,
+  limits,
 }: {
+  limits: readonly ScenarioLimit[];
   output: EstimateOutput;
   units: UnitSystem;
   ongoing: boolean;
@@ -52,6 +54,7 @@ export function Results({
   return (
     <div class="results">
       <p class="stability-used">{stabilityWords(output.stability_used, output.stability_reason)}</p>
+      <p class="near-zone-note">{nearZoneWords(output.footprint.near_zone_m, units)}</p>
       <WarningList warnings={general} title="Model limits for this estimate" />
       <ol class="bands">
         {output.bands.map((b, i) => {
@@ -63,7 +66,7 @@ export function Results({
                 {b.label}
               </h3>
               <dl class="figures">
-                {bandFigures(b, units, ongoing).map((f) => (
+                {bandFigures(b, units, ongoing, limits[i]).map((f) => (
                   <div class="figure" key={f.key}>
                     <dt>{f.label}</dt>
                     <dd data-testid={f.key === "reach" ? `band-reach-${i}` : undefined}>

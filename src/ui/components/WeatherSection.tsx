@@ -40,7 +40,7 @@ export function WeatherSection({
   const dirWords = directionWords(form.windFrom);
   const suggestionText = suggestion
     ? form.stability === "auto"
-      ? `Using ${suggestion.stability} (suggested): ${suggestion.reason}`
+      ? `Using class ${suggestion.stability}. ${suggestion.reason}`
       : `Suggested ${suggestion.stability}: ${suggestion.reason} You chose ${form.stability}.`
     : form.sky === "sun"
       ? "A class is suggested once the wind speed and the place (for the sun's height) are valid."
