@@ -57,6 +57,8 @@ export interface FormState {
   diameterUnit: LengthUnit;
   gasTemp: string;
   gasTempUnit: TemperatureUnit;
+  /** Air temperature (plume rise only), in `gasTempUnit`; blank = the model's 25 °C. */
+  airTemp: string;
   windSpeed: string;
   windSpeedUnit: SpeedUnit;
   windHeight: string;
@@ -86,6 +88,7 @@ export const FIELD = {
   exitSpeed: "exit-speed",
   diameter: "diameter",
   gasTemp: "gas-temp",
+  airTemp: "air-temp",
   windSpeed: "wind-speed",
   windHeight: "wind-height",
   windFrom: "wind-from",
@@ -113,6 +116,7 @@ export const FIELD_LABEL: Record<string, string> = {
   [FIELD.exitSpeed]: "Exit speed",
   [FIELD.diameter]: "Vent diameter",
   [FIELD.gasTemp]: "Gas temperature",
+  [FIELD.airTemp]: "Air temperature",
   [FIELD.windSpeed]: "Wind speed",
   [FIELD.windHeight]: "Measured at height",
   [FIELD.windFrom]: "Wind from",
@@ -171,6 +175,7 @@ export function initialForm(): FormState {
     diameterUnit: "m",
     gasTemp: "",
     gasTempUnit: "°C",
+    airTemp: "",
     windSpeed: "",
     windSpeedUnit: "m/s",
     windHeight: "10",
@@ -282,7 +287,10 @@ function build(
   const heightV = num(FIELD.height, form.height, false);
   const height_m = heightV === undefined ? undefined : lengthToM(heightV, form.heightUnit);
   let hot: Scenario["release"]["hot"];
+  let airK: number | undefined;
   if (form.hotOn) {
+    const air = num(FIELD.airTemp, form.airTemp, false);
+    if (air !== undefined) airK = temperatureToK(air, form.gasTempUnit);
     const sp = num(FIELD.exitSpeed, form.exitSpeed, true);
     const d = num(FIELD.diameter, form.diameter, true);
     const t = num(FIELD.gasTemp, form.gasTemp, true);
@@ -391,6 +399,7 @@ function build(
     terrain: form.terrain,
     ...(wh !== undefined ? { wind_height_m: lengthToM(wh, form.windHeightUnit) } : {}),
     ...(mix !== undefined ? { mixing_height_m: lengthToM(mix, form.mixingHeightUnit) } : {}),
+    ...(airK !== undefined ? { air_temperature_k: airK } : {}),
     ...(form.stability === "auto" ? { time: ctx.timeIso } : {}),
   };
   const scenario: Scenario = {
@@ -425,6 +434,7 @@ export function fieldForPath(path: string): string {
     [/^release\.hot\.diameter/, FIELD.diameter],
     [/^release\.hot\.gas_temperature/, FIELD.gasTemp],
     [/^release\.hot/, FIELD.exitSpeed],
+    [/^weather\.air_temperature/, FIELD.airTemp],
     [/^release/, FIELD.rate],
     [/^weather\.wind_speed/, FIELD.windSpeed],
     [/^weather\.wind_height/, FIELD.windHeight],
@@ -484,6 +494,8 @@ export function formFromScenario(s: Scenario): FormState {
     f.exitSpeed = tidy(r.hot.exit_speed_m_s);
     f.diameter = tidy(r.hot.diameter_m);
     f.gasTemp = tidy(temperatureFromK(r.hot.gas_temperature_k, "°C"));
+    const air = s.weather.air_temperature_k;
+    f.airTemp = air === undefined ? "" : tidy(temperatureFromK(air, "°C"));
   }
   const w = s.weather;
   f.windSpeedUnit = "m/s";

@@ -230,3 +230,73 @@ describe("every problem at once", () => {
     expect(two.problems.filter((p) => p.field === "rate")).toHaveLength(1);
   });
 });
+
+describe("hot release", () => {
+  it("sends exit speed, diameter and temperatures in SI (0 °C = 273.15 K)", () => {
+    const r = buildScenario(
+      {
+        ...filled(),
+        hotOn: true,
+        exitSpeed: "12",
+        diameter: "2",
+        diameterUnit: "ft",
+        gasTemp: "400",
+        airTemp: "10",
+      },
+      ctx,
+    );
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.scenario.release.hot?.exit_speed_m_s).toBe(12);
+    expect(r.scenario.release.hot?.diameter_m).toBeCloseTo(0.6096, 12);
+    expect(r.scenario.release.hot?.gas_temperature_k).toBeCloseTo(673.15, 9);
+    expect(r.scenario.weather.air_temperature_k).toBeCloseTo(283.15, 9);
+    expect(() => estimate(r.scenario)).not.toThrow();
+  });
+});
+
+describe("suggested stability class", () => {
+  it("shown beside the picker is the class the core uses with 'auto'", async () => {
+    const { suggestionFor } = await import("../../src/ui/suggestion.ts");
+    for (const sky of ["night-clear", "night-cloudy", "strong-sun", "overcast"] as const) {
+      for (const windSpeed of ["1.5", "2.5", "4", "7"]) {
+        const form = {
+          ...filled(),
+          stability: "auto" as const,
+          sky,
+          windSpeed,
+          windSpeedUnit: "m/s" as const,
+        };
+        const s = suggestionFor(form, ctx.timeIso);
+        const built = buildScenario(form, ctx);
+        expect(built.ok).toBe(true);
+        if (!built.ok || !s) throw new Error("no suggestion");
+        const out = estimate(built.scenario);
+        expect(s.stability).toBe(out.stability_used);
+        expect(s.reason).toBe(out.stability_reason);
+      }
+    }
+    // Pasquill (1961), as tabulated in Boubel, Fox, Turner & Stern (1994), Table 19-3, p. 302:
+    // night with ≤ 3/8 cloud: 2–3 m/s → F, 3–5 m/s → E; heavy overcast → D.
+    const at = (sky: "night-clear" | "overcast", windSpeed: string) =>
+      suggestionFor(
+        { ...filled(), stability: "auto", sky, windSpeed, windSpeedUnit: "m/s" },
+        ctx.timeIso,
+      )?.stability;
+    expect(at("night-clear", "2.5")).toBe("F");
+    expect(at("night-clear", "4")).toBe("E");
+    expect(at("overcast", "4")).toBe("D");
+    // Overriding keeps the suggestion visible: it does not depend on the chosen letter.
+    expect(
+      suggestionFor(
+        { ...filled(), stability: "A", sky: "night-clear", windSpeed: "2" },
+        ctx.timeIso,
+      )?.stability,
+    ).toBe(
+      suggestionFor(
+        { ...filled(), stability: "auto", sky: "night-clear", windSpeed: "2" },
+        ctx.timeIso,
+      )?.stability,
+    );
+  });
+});

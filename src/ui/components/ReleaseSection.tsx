@@ -157,6 +157,16 @@ export function ReleaseSection({ form, dispatch, errors }: SectionProps) {
               onUnit: set("gasTempUnit"),
             }}
           />
+          <TextField
+            id={FIELD.airTemp}
+            label="Air temperature"
+            value={form.airTemp}
+            onInput={set("airTemp")}
+            errors={errors[FIELD.airTemp]}
+            decimal={false}
+            suffix={form.gasTempUnit}
+            hint="Optional; 25 °C when empty. Used only for the plume rise."
+          />
         </div>
       ) : null}
     </fieldset>
