@@ -202,6 +202,21 @@ describe("accessibility and reach", () => {
     await page.getByRole("button", { name: "Night theme" }).click();
   });
 
+  it("has no axe-core violations with marked fields and a stale result, nor on the limits page", async () => {
+    const { page } = browser;
+    await page.getByRole("button", { name: "Demo" }).click();
+    await label(page, "Release rate").fill("-5");
+    await label(page, "Wind from").fill("xyz");
+    await expect.poll(() => page.getByTestId("stale").count()).toBe(1);
+    const marked = await new AxeBuilder({ page }).analyze();
+    expect(marked.violations.map((v) => v.id)).toEqual([]);
+    await page.getByRole("button", { name: "What this model cannot do" }).click();
+    await expect.poll(() => page.getByText("Checked against field measurements").count()).toBe(1);
+    const about = await new AxeBuilder({ page }).analyze();
+    expect(about.violations.map((v) => v.id)).toEqual([]);
+    await page.getByRole("button", { name: "Back to the estimate" }).first().click();
+  });
+
   it("gives every interactive target at least 44 × 44 CSS px (WCAG 2.5.5 Target Size, AAA)", async () => {
     const { page } = browser;
     await page.getByRole("button", { name: "Demo" }).click();
