@@ -238,14 +238,21 @@ describe("release duration", () => {
   });
 });
 
-describe("known core bug (reported to the lead, not fixed here)", () => {
-  // A point a hair downwind of the source (0 < x_m ≲ 1e-150 m, allowed by the contract's
-  // [-1e6, 1e6] m range) gives NaN concentration: σy² underflows to 0 and exp(−y²/(2σy²)) is
-  // exp(−0/0). An all-at-once release there also gives clears_s = Infinity. `test.fails` keeps
-  // it visible: when the core is fixed this test fails and should become a plain test.
-  test.fails("a point at x = 1e-170 m gives finite figures", () => {
-    const s = base();
-    s.points = [{ x_m: 1e-170, y_m: 0 }];
-    run(s);
+describe("points a hair from the source", () => {
+  // Found by the property test of valid-scenarios.test.ts: at 0 < x_m ≲ 1e-150 m σy² underflowed
+  // to 0 and the point concentration was NaN (exp(−0/0)), clears_s Infinity. Fixed in the core
+  // (b55a0fa: distances below 1 mm are evaluated at 1 mm); these pin it.
+  test.each([1e-170, 5e-324, 1e-3, 1e-9])("a point at x = %s m gives finite figures", (x) => {
+    for (const release of [
+      { kind: "continuous" as const, rate_g_s: 500, duration_s: 60 },
+      { kind: "instantaneous" as const, mass_g: 1000 },
+    ]) {
+      const s = { ...base(), release };
+      s.points = [
+        { x_m: x, y_m: 0, z_m: 0 },
+        { x_m: x, y_m: 1e-200 },
+      ];
+      run(s);
+    }
   });
 });
