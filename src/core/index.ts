@@ -2,150 +2,32 @@
  * Driftmark's one entry point: `estimate(scenario)` takes the scenario object (the JSON the
  * command-line estimator reads) and returns the estimate object it prints. The app, the command
  * and the model checks all call it. Pure: no DOM, no storage, no clock.
+ *
+ * The one place the core uses `src/geo` (itself pure, importing only core types and turf): to
+ * place the footprint on the earth as RFC 7946 GeoJSON when the scenario has a `source`.
  */
 import { footprintGeoJSON } from "../geo/geojson.ts";
 import { CAUTION, MODEL_VERSION } from "./caution.ts";
-import { type BandSolution, SCAN_MAX_M, solveBand } from "./footprint.ts";
-import { makePlume, type Plume } from "./plume.ts";
-import { plumeRise } from "./rise.ts";
-import { parseScenario } from "./scenario.ts";
-import { CURVE_RANGE_M } from "./sigma.ts";
-import { suggestStability } from "./stability.ts";
-import { cloudPassage, passageAt } from "./timing.ts";
-import type {
-  BandOutput,
-  EstimateOutput,
-  LocalBand,
-  ParsedScenario,
-  PlumeSetup,
-  PointOutput,
-  Scenario,
-  StabilityClass,
-  Warning,
-  WarningCode,
-} from "./types.ts";
-import { mgM3ToPpm, ppmToMgM3 } from "./units.ts";
-import { windAtHeight } from "./wind.ts";
+import { estimateLocal } from "./estimate.ts";
+import type { EstimateOutput, Scenario } from "./types.ts";
 
 export { CAUTION, MODEL_VERSION } from "./caution.ts";
 export { formatProblem, ScenarioError } from "./errors.ts";
+export {
+  AIR_MOLECULAR_WEIGHT,
+  centrelineProfile,
+  estimateLocal,
+  LOW_WIND_M_S,
+  type Prepared,
+  prepare,
+} from "./estimate.ts";
+export { SCAN_MAX_M } from "./footprint.ts";
 export { parseScenario } from "./scenario.ts";
 export type * from "./types.ts";
 
-/** Molecular weight of dry air (g/mol); heavier gases raise the dense-gas caution. */
-export const AIR_MOLECULAR_WEIGHT = 29;
-/** Below this measured wind (m/s) a stable night gives long, narrow, meandering bands. */
-export const LOW_WIND_M_S = 2;
-
-/** What the physics works with after validation and the weather step. */
-export interface Prepared {
-  parsed: ParsedScenario;
-  setup: PlumeSetup;
-  stabilityReason: string;
-  /** Limits in g/m³, in the scenario's order. */
-  limits: { label: string; value: number; averaging: number }[];
-  warnings: Warning[];
-  /** Plume for averaging time t_a (s), built once per distinct t_a. */
-  plume(averaging: number): Plume;
-}
-
-/** Validate the scenario and work out the weather, heights and limits. Throws ScenarioError. */
-export function prepare(raw: unknown): Prepared {
-  const parsed = parseScenario(raw);
-  const warnings: Warning[] = [];
-
-  let stability: StabilityClass;
-  let stabilityReason: string;
-  if (parsed.stability === "auto") {
-    const s = suggestStability({
-      windSpeed: parsed.windSpeedRef,
-      windHeight: parsed.windRefHeight,
-      terrain: parsed.terrain,
-      sky: parsed.sky ?? "overcast",
-      timeMs: parsed.timeMs,
-      lat: parsed.source?.lat ?? null,
-      lon: parsed.source?.lon ?? null,
-    });
-    stability = s.stability;
-    stabilityReason = s.reason;
-    warnings.push(...s.warnings);
-  } else {
-    stability = parsed.stability;
-    stabilityReason = `Given: class ${stability}`;
-  }
-
-  const wind = windAtHeight(
-    parsed.windSpeedRef,
-    parsed.windRefHeight,
-    parsed.height,
-    stability,
-    parsed.terrain,
-  );
-  if (wind.calm) {
-    warn(
-      warnings,
-      "calm-wind",
-      `Wind at release height is ${fmt(wind.powerLaw)} m/s, under 1 m/s: the model computes with 1 m/s, ` +
-        "but a Gaussian plume does not describe calms. The cloud may pool and spread in any direction.",
-    );
-  }
-  if ((stability === "E" || stability === "F") && parsed.windSpeedRef < LOW_WIND_M_S) {
-    warn(
-      warnings,
-      "stable-low-wind",
-      `Stable air (class ${stability}) with a light wind: bands are long and narrow and may meander ` +
-        "off the mean wind direction. Widen the wind swing.",
-    );
-  }
-  const mw = parsed.molecularWeight;
-  if (parsed.heavyOrCold || (mw !== null && mw > AIR_MOLECULAR_WEIGHT)) {
-    const why = parsed.heavyOrCold
-      ? "the release is marked heavier than air, cold or pressurised"
-      : `molecular weight ${fmt(mw ?? 0)} g/mol is above air's ${AIR_MOLECULAR_WEIGHT} g/mol`;
-    warn(
-      warnings,
-      "dense-gas",
-      `Possible dense gas: ${why}. A heavy cloud slumps and spreads near the ground, wider and ` +
-        "sometimes upwind, which a Gaussian plume does not describe (Britter & McQuaid 1988).",
-    );
-  }
-
-  const rise = parsed.hot ? plumeRise(parsed.hot, parsed.airTemperature, wind.used, stability) : 0;
-  const setup: PlumeSetup = {
-    release: parsed.release,
-    height: parsed.height,
-    windSpeed: wind.used,
-    stability,
-    terrain: parsed.terrain,
-    scheme: parsed.scheme,
-    mixingHeight: parsed.mixingHeight,
-    effectiveHeight: parsed.height + rise,
-  };
-  if (setup.mixingHeight !== null && setup.effectiveHeight > setup.mixingHeight) {
-    warn(
-      warnings,
-      "above-lid",
-      `The plume (${fmt(setup.effectiveHeight)} m) is above the mixing height (${fmt(setup.mixingHeight)} m): ` +
-        "the model gives no ground concentration, but the lid may not hold. Do not read this as safe.",
-    );
-  }
-
-  const limits = parsed.limits.map((l) => ({
-    label: l.label,
-    value: (l.unit === "ppm" ? ppmToMgM3(l.value, mw as number) : l.value) / 1000,
-    averaging: l.averaging,
-  }));
-
-  const cache = new Map<number, Plume>();
-  const plume = (averaging: number): Plume => {
-    let p = cache.get(averaging);
-    if (!p) {
-      p = makePlume(setup, averaging);
-      cache.set(averaging, p);
-    }
-    return p;
-  };
-  return { parsed, setup, stabilityReason, limits, warnings, plume };
+export interface EstimateOptions {
+  /** Build the GeoJSON when `source` is given (default true). */
+  geojson?: boolean;
 }
 
 /**
@@ -161,92 +43,17 @@ export function prepare(raw: unknown): Prepared {
  *   limits: [{ label: "Limit A (invented)", value: 40, unit: "mg/m3", averaging_s: 3600 }],
  * }).bands[0].reach_m; // metres downwind
  */
-export interface EstimateOptions {
-  /** Build the GeoJSON when `source` is given (default true). The app's live updates skip it. */
-  geojson?: boolean;
-}
-
 export function estimate(
   scenario: Scenario | unknown,
   options: EstimateOptions = {},
 ): EstimateOutput {
-  const prep = prepare(scenario);
-  const { parsed, setup, warnings } = prep;
-  const zr = parsed.receptorHeight;
-
-  const solutions: BandSolution[] = [];
-  const bands: BandOutput[] = prep.limits.map((limit) => {
-    const plume = prep.plume(limit.averaging);
-    const sol = solveBand(plume, limit.value, zr, parsed.windSwingDeg);
-    solutions.push(sol);
-    bandWarnings(warnings, limit.label, limit.averaging, plume, sol, parsed);
-    // Far end: the cloud's front and back there (½ peak); see timing.ts `cloudPassage`.
-    const far = sol.reach !== null && !sol.overMaxRange ? cloudPassage(plume, sol.reach) : null;
-    return {
-      label: limit.label,
-      limit_mg_m3: limit.value * 1000,
-      averaging_s: limit.averaging,
-      reach_m: sol.reach,
-      start_m: sol.start,
-      max_width_m: sol.sweptMaxWidth,
-      max_width_at_m: sol.maxWidthAt,
-      area_m2: sol.sweptArea,
-      arrives_s: far?.arrives ?? null,
-      clears_s: far?.clears ?? null,
-    };
-  });
-
-  const mw = parsed.molecularWeight;
-  const points: PointOutput[] = parsed.points.map((pt) => {
-    const c = prep.plume(pt.averaging).concentration(pt.x, pt.y, pt.z) * 1000;
-    return {
-      x_m: pt.x,
-      y_m: pt.y,
-      z_m: pt.z,
-      averaging_s: pt.averaging,
-      concentration_mg_m3: c,
-      concentration_ppm: mw === null ? null : mgM3ToPpm(c, mw),
-      limits: prep.limits.map((limit) => {
-        const p = passageAt(prep.plume(limit.averaging), limit.value, pt.x, pt.y, pt.z);
-        return { label: limit.label, arrives_s: p.arrives, clears_s: p.clears };
-      }),
-    };
-  });
-
-  const heading = (((parsed.windFromDeg + 180) % 360) + 360) % 360;
-  const localBands: LocalBand[] = solutions.map((s, i) => ({
-    label: prep.limits[i]?.label ?? "",
-    outline: s.outline,
-    swept: s.swept,
-  }));
-  let longest = 0;
-  for (const s of solutions) if (s.reach !== null && s.reach > longest) longest = s.reach;
-  const footprint = {
-    heading_deg: heading,
-    wind_swing_deg: parsed.windSwingDeg,
-    near_zone_m: parsed.nearZone,
-    bands: localBands,
-    centreline_m: Math.max(longest, parsed.nearZone),
-  };
-
-  const out: EstimateOutput = {
-    model_version: MODEL_VERSION,
-    caution: CAUTION,
-    wind_speed_used_m_s: setup.windSpeed,
-    release_height_used_m: setup.height,
-    effective_height_m: setup.effectiveHeight,
-    stability_used: setup.stability,
-    stability_reason: prep.stabilityReason,
-    bands,
-    points,
-    warnings,
-    footprint,
-  };
-  if (parsed.source && options.geojson !== false) {
+  const out = estimateLocal(scenario);
+  const source = (scenario as Scenario).source;
+  if (source && options.geojson !== false) {
     out.geojson = footprintGeoJSON({
-      footprint,
-      bands,
-      source: parsed.source,
+      footprint: out.footprint,
+      bands: out.bands,
+      source,
       inputs: scenario as Record<string, unknown>,
       modelVersion: MODEL_VERSION,
       caution: CAUTION,
@@ -255,90 +62,3 @@ export function estimate(
   }
   return out;
 }
-
-/**
- * The centreline concentration C̄(x, 0, z_r) (mg/m³) at each distance in `xs` (m), one curve per
- * limit (each limit has its own averaging time), for the centreline chart.
- */
-export function centrelineProfile(
-  scenario: Scenario | unknown,
-  xs: readonly number[],
-): { label: string; averaging_s: number; limit_mg_m3: number; values_mg_m3: number[] }[] {
-  const prep = prepare(scenario);
-  const zr = prep.parsed.receptorHeight;
-  return prep.limits.map((l) => {
-    const p = prep.plume(l.averaging);
-    return {
-      label: l.label,
-      averaging_s: l.averaging,
-      limit_mg_m3: l.value * 1000,
-      values_mg_m3: xs.map((x) => p.centreline(x, zr) * 1000),
-    };
-  });
-}
-
-function bandWarnings(
-  warnings: Warning[],
-  label: string,
-  averaging: number,
-  plume: Plume,
-  sol: BandSolution,
-  parsed: ParsedScenario,
-): void {
-  if (sol.reach === null) {
-    warn(
-      warnings,
-      "no-exceedance",
-      `${label}: the estimate stays below this limit at breathing height everywhere from 1 m to 100 km.`,
-      label,
-    );
-  } else {
-    if (sol.overMaxRange) {
-      warn(
-        warnings,
-        "reach-over-100km",
-        `${label}: the band reaches over 100 km, beyond anything this model can say. Treat as very large.`,
-        label,
-      );
-    }
-    if (sol.reach < CURVE_RANGE_M.min || sol.reach > CURVE_RANGE_M.max) {
-      warn(
-        warnings,
-        "outside-curve-range",
-        `${label}: reach ${fmt(sol.reach)} m is outside the 100 m – 10 km range the dispersion curves ` +
-          "were fitted for; the figure is less certain.",
-        label,
-      );
-    }
-    if (sol.reach <= parsed.nearZone) {
-      warn(
-        warnings,
-        "near-zone-only",
-        `${label}: the band lies inside the near zone (${fmt(parsed.nearZone)} m), where the model does not hold.`,
-        label,
-      );
-    }
-  }
-  if (plume.samplingClamped && parsed.release.kind === "continuous") {
-    warn(
-      warnings,
-      "averaging-clamped",
-      `${label}: the spread correction for the averaging time is held at ${fmt(plume.samplingTime)} s ` +
-        `(allowed 180–3600 s; asked ${fmt(Math.min(averaging, parsed.release.duration ?? Number.POSITIVE_INFINITY))} s).`,
-      label,
-    );
-  }
-}
-
-function warn(list: Warning[], code: WarningCode, message: string, limit?: string): void {
-  if (list.some((w) => w.code === code && w.limit === limit)) return;
-  list.push(limit === undefined ? { code, message } : { code, message, limit });
-}
-
-function fmt(v: number): string {
-  if (!Number.isFinite(v)) return String(v);
-  const a = Math.abs(v);
-  return a >= 100 ? v.toFixed(0) : a >= 10 ? v.toFixed(1) : v.toPrecision(2);
-}
-
-export { SCAN_MAX_M };

@@ -1,9 +1,8 @@
 import { useEffect, useMemo, useReducer, useRef, useState } from "preact/hooks";
-import { centrelineProfile, estimate } from "../core/index.ts";
-import type { Scenario } from "../core/types.ts";
-import { AboutPage } from "./components/AboutPage.tsx";
+import { ScenarioError } from "../core/errors.ts";
+import { centrelineProfile, estimateLocal } from "../core/estimate.ts";
+import type { EstimateOutput, Scenario } from "../core/types.ts";
 import { CautionBanner } from "./components/CautionBanner.tsx";
-import { CentrelineChart } from "./components/CentrelineChart.tsx";
 import { FootprintView } from "./components/FootprintView.tsx";
 import { LimitsSection } from "./components/LimitsSection.tsx";
 import { PlaceSection } from "./components/PlaceSection.tsx";
@@ -11,10 +10,10 @@ import { ReleaseSection } from "./components/ReleaseSection.tsx";
 import { Results } from "./components/Results.tsx";
 import { Toolbar } from "./components/Toolbar.tsx";
 import { WeatherSection } from "./components/WeatherSection.tsx";
+import { DeferredAboutPage, DeferredCentrelineChart, DeferredLogSection } from "./deferred.tsx";
 import { DEMO_SCENARIO } from "./demo.ts";
-import { type Evaluation, evaluate } from "./evaluate.ts";
+import { type Evaluation, evaluate, readForm, settle } from "./evaluate.ts";
 import { groupProblems } from "./form.ts";
-import { LogSection } from "./log/LogSection.tsx";
 import { bandStyles } from "./palette.ts";
 import { makeProfile } from "./profile.ts";
 import {
@@ -35,18 +34,72 @@ const nowIso = () => new Date().toISOString();
 /** Pause after the last keystroke before recomputing (ms). */
 const TYPING_PAUSE_MS = 60;
 
-export function App() {
+/**
+ * Runs estimates off the main thread (src/app/worker), latest wins. Errors are told apart by
+ * name: "EstimateCancelled" (a newer one superseded it: ignore) and "EstimateTimeout" (the
+ * solve was stopped: keep the previous result, marked out of date).
+ */
+export interface AsyncEstimator {
+  run(scenario: Scenario, options?: { geojson?: boolean }): Promise<EstimateOutput>;
+  dispose(): void;
+}
+
+export interface AppProps {
+  /** Makes the off-thread estimator, on the first change after start. Absent: estimate here. */
+  makeEstimator?: () => AsyncEstimator;
+}
+
+const SLOW_PROBLEM = {
+  field: "",
+  message:
+    "These inputs take too long to estimate and the estimate was stopped. Showing the last one; " +
+    "try fewer limits or a smaller wind swing.",
+};
+
+export function App({ makeEstimator }: AppProps = {}) {
   const [screen, dispatch] = useReducer(reduce, undefined, () => initialScreen(DEMO_SCENARIO));
   const [theme, setTheme] = useState<Theme>(loadTheme);
   const [units, setUnits] = useState<UnitSystem>(loadUnits);
   const [view, setView] = useState<"main" | "about">("main");
   const previous = useRef<Evaluation["last"]>(null);
-  const run = (form: typeof screen.form): Evaluation => {
-    const ev = evaluate(form, { timeIso: nowIso() }, estimate, previous.current);
+  const estimator = useRef<AsyncEstimator | null>(null);
+  const show = (ev: Evaluation) => {
+    previous.current = ev.last;
+    setEvaluation(ev);
+  };
+  // The first estimate is computed here, so the first screen shows it without waiting for a worker.
+  const [evaluation, setEvaluation] = useState<Evaluation>(() => {
+    const ev = evaluate(screen.form, { timeIso: nowIso() }, estimateLocal, null);
     previous.current = ev.last;
     return ev;
+  });
+  const recompute = (form: typeof screen.form) => {
+    const r = readForm(form, { timeIso: nowIso() }, previous.current);
+    if (!r.ready) return show(r.evaluation);
+    if (!makeEstimator) {
+      return show(evaluate(form, { timeIso: nowIso() }, estimateLocal, previous.current));
+    }
+    estimator.current ??= makeEstimator();
+    estimator.current.run(r.scenario, { geojson: false }).then(
+      (output) => show(settle(r.scenario, { output }, previous.current)),
+      (error: unknown) => {
+        const name = error instanceof Error ? error.name : "";
+        if (name === "EstimateCancelled") return;
+        if (name === "EstimateTimeout") {
+          return show({
+            last: previous.current,
+            stale: previous.current !== null,
+            problems: [SLOW_PROBLEM],
+          });
+        }
+        if (error instanceof ScenarioError)
+          return show(settle(r.scenario, { error }, previous.current));
+        // The worker itself failed: estimate here instead.
+        show(evaluate(form, { timeIso: nowIso() }, estimateLocal, previous.current));
+      },
+    );
   };
-  const [evaluation, setEvaluation] = useState<Evaluation>(() => run(screen.form));
+  useEffect(() => () => estimator.current?.dispose(), []);
   const firstRun = useRef(true);
   // Recompute as the user types; a short pause coalesces keystrokes so typing never lags.
   useEffect(() => {
@@ -54,7 +107,7 @@ export function App() {
       firstRun.current = false;
       return;
     }
-    const timer = setTimeout(() => setEvaluation(run(screen.form)), TYPING_PAUSE_MS);
+    const timer = setTimeout(() => recompute(screen.form), TYPING_PAUSE_MS);
     return () => clearTimeout(timer);
   }, [screen.form]);
 
@@ -88,7 +141,7 @@ export function App() {
     return (
       <div class="app">
         <CautionBanner onLimits={() => setView("main")} showingLimits={true} />
-        <AboutPage onBack={() => setView("main")} />
+        <DeferredAboutPage onBack={() => setView("main")} />
       </div>
     );
   }
@@ -168,13 +221,15 @@ export function App() {
                 styles={styles}
                 limits={last.scenario.limits}
               />
-              {profile ? <CentrelineChart profile={profile} styles={styles} units={units} /> : null}
+              {profile ? (
+                <DeferredCentrelineChart profile={profile} styles={styles} units={units} />
+              ) : null}
             </>
           ) : (
             <p>Enter the release, weather and at least one limit to see the footprint.</p>
           )}
         </section>
-        <LogSection
+        <DeferredLogSection
           scenario={evaluation.stale ? null : (last?.scenario ?? null)}
           result={evaluation.stale ? null : (last?.output ?? null)}
           onReopen={loadScenario}

@@ -30,36 +30,62 @@ export interface Evaluation {
 
 export type EstimateFn = (s: Scenario) => EstimateOutput;
 
+/** The form read into a scenario to estimate, or the problems that stop it (previous result kept). */
+export type Readiness =
+  | { ready: true; scenario: Scenario }
+  | { ready: false; evaluation: Evaluation };
+
+/** First half of a pass: read the form; the estimate itself may then run here or in a worker. */
+export function readForm(form: FormState, ctx: BuildContext, previous: Valid | null): Readiness {
+  const built = buildScenario(form, ctx);
+  if (built.ok) return { ready: true, scenario: built.scenario };
+  return {
+    ready: false,
+    evaluation: {
+      last: previous,
+      stale: previous !== null,
+      problems: withCoreChecks(form, ctx, built.problems),
+    },
+  };
+}
+
+/** Second half: what the screen shows for the estimate's output, or for the error it threw. */
+export function settle(
+  scenario: Scenario,
+  outcome: { output: EstimateOutput } | { error: unknown },
+  previous: Valid | null,
+): Evaluation {
+  if ("output" in outcome) {
+    return { last: { scenario, output: outcome.output }, stale: false, problems: [] };
+  }
+  const err = outcome.error;
+  const problems: FieldProblem[] =
+    err instanceof ScenarioError
+      ? problemsFromCore(err.problems)
+      : [
+          {
+            field: "",
+            message: `The estimate could not be computed for these inputs (${
+              err instanceof Error ? err.message : String(err)
+            }). Check the values.`,
+          },
+        ];
+  return { last: previous, stale: previous !== null, problems };
+}
+
+/** One synchronous pass: read the form, run `estimate`, settle. */
 export function evaluate(
   form: FormState,
   ctx: BuildContext,
   estimate: EstimateFn,
   previous: Valid | null,
 ): Evaluation {
-  const built = buildScenario(form, ctx);
-  if (!built.ok) {
-    return {
-      last: previous,
-      stale: previous !== null,
-      problems: withCoreChecks(form, ctx, built.problems),
-    };
-  }
+  const r = readForm(form, ctx, previous);
+  if (!r.ready) return r.evaluation;
   try {
-    const output = estimate(built.scenario);
-    return { last: { scenario: built.scenario, output }, stale: false, problems: [] };
-  } catch (err) {
-    const problems: FieldProblem[] =
-      err instanceof ScenarioError
-        ? problemsFromCore(err.problems)
-        : [
-            {
-              field: "",
-              message: `The estimate could not be computed for these inputs (${
-                err instanceof Error ? err.message : String(err)
-              }). Check the values.`,
-            },
-          ];
-    return { last: previous, stale: previous !== null, problems };
+    return settle(r.scenario, { output: estimate(r.scenario) }, previous);
+  } catch (error) {
+    return settle(r.scenario, { error }, previous);
   }
 }
 

@@ -1,13 +1,13 @@
 /** One logged entry opened: its figures, Reopen, Share, Delete; stored vs recomputed figures. */
 import { MODEL_VERSION } from "../../core/caution.ts";
-import { estimate } from "../../core/index.ts";
+import { estimateLocal } from "../../core/estimate.ts";
 import type { BandOutput, EstimateOutput } from "../../core/types.ts";
 import type { LogEntry } from "../../storage/schema.ts";
 import { distanceText, placeText, timeText } from "./summary.ts";
 
 function recompute(e: LogEntry): { out: EstimateOutput | null; problem: string | null } {
   try {
-    return { out: estimate(e.scenario), problem: null };
+    return { out: estimateLocal(e.scenario), problem: null };
   } catch (err) {
     return { out: null, problem: err instanceof Error ? err.message : String(err) };
   }

@@ -1,0 +1,85 @@
+/**
+ * Parts of the screen that are not needed for the first estimate are loaded after it is on
+ * screen (the log, with its storage and export code) or on demand (the model page), so the
+ * first screen parses as little JavaScript as possible on a low-end phone. The chart below the
+ * figures follows the same rule.
+ */
+import type { ComponentType } from "preact";
+import { useEffect, useState } from "preact/hooks";
+import type { LogSectionProps } from "./log/LogSection.tsx";
+import type { BandStyle } from "./palette.ts";
+import type { Profile } from "./profile.ts";
+import type { UnitSystem } from "./units.ts";
+
+export interface ChartProps {
+  profile: Profile;
+  styles: readonly BandStyle[];
+  units: UnitSystem;
+}
+
+/** Load a component once; later calls share the same promise. */
+function once<P>(load: () => Promise<ComponentType<P>>): () => Promise<ComponentType<P>> {
+  let p: Promise<ComponentType<P>> | null = null;
+  return () => {
+    p ??= load();
+    return p;
+  };
+}
+
+export const loadLogSection = once<LogSectionProps>(() =>
+  import("./log/LogSection.tsx").then((m) => m.LogSection),
+);
+export const loadCentrelineChart = once<ChartProps>(() =>
+  import("./components/CentrelineChart.tsx").then((m) => m.CentrelineChart),
+);
+export const loadAboutPage = once<{ onBack: () => void }>(() =>
+  import("./components/AboutPage.tsx").then((m) => m.AboutPage),
+);
+
+/** Render `load()`'s component once it is there; `fallback` until then. Starts at once, or when idle. */
+function useDeferred<P>(load: () => Promise<ComponentType<P>>, whenIdle: boolean) {
+  const [C, setC] = useState<ComponentType<P> | null>(null);
+  useEffect(() => {
+    let live = true;
+    const start = () => {
+      load().then(
+        (c) => live && setC(() => c),
+        () => live && setC(null),
+      );
+    };
+    if (!whenIdle) start();
+    else if ("requestIdleCallback" in window) window.requestIdleCallback(start, { timeout: 1000 });
+    else setTimeout(start, 100);
+    return () => {
+      live = false;
+    };
+  }, [load, whenIdle]);
+  return C;
+}
+
+/** The log section, loaded once the first estimate has been drawn. */
+export function DeferredLogSection(props: LogSectionProps) {
+  const C = useDeferred(loadLogSection, true);
+  if (!C) {
+    return (
+      <section class="dm-log" aria-labelledby="dm-log-title">
+        <h2 id="dm-log-title">Log</h2>
+        <p>Opening the log…</p>
+      </section>
+    );
+  }
+  return <C {...props} />;
+}
+
+/** The "what this model cannot do" page, loaded when asked for. */
+export function DeferredAboutPage(props: { onBack: () => void }) {
+  const C = useDeferred(loadAboutPage, false);
+  if (!C) return <p role="status">Opening…</p>;
+  return <C {...props} />;
+}
+
+/** The centreline chart, loaded once the first estimate has been drawn. */
+export function DeferredCentrelineChart(props: ChartProps) {
+  const C = useDeferred(loadCentrelineChart, true);
+  return C ? <C {...props} /> : null;
+}
