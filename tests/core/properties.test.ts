@@ -67,7 +67,7 @@ const scenarioArb: fc.Arbitrary<Scenario> = fc
       sigma_scheme: fc.constantFrom("briggs" as const, "pasquill-gifford" as const),
       receptor_height_m: fc.double({ min: 0, max: 5, noNaN: true }),
       molecular_weight_g_mol: fc.double({ min: 2, max: 300, noNaN: true }),
-      limits: fc.array(limitArb, { minLength: 1, maxLength: 3 }),
+      limits: fc.uniqueArray(limitArb, { minLength: 1, maxLength: 3, selector: (l) => l.label }),
       wind_swing_deg: fc.double({ min: 0, max: 45, noNaN: true }),
       near_zone_m: fc.double({ min: 0, max: 500, noNaN: true }),
       points: fc.array(
