@@ -31,10 +31,11 @@ export function exteriorRings(g: Geometry): Position[][] {
 }
 
 function decimals(v: number): number {
-  const s = String(v);
-  if (s.includes("e")) return 99;
-  const i = s.indexOf(".");
-  return i < 0 ? 0 : s.length - i - 1;
+  // JavaScript writes small numbers in exponent form: 8e-7 has 7 decimals, 1.5e-7 has 8.
+  const [mantissa = "", exp = "0"] = String(v).split("e");
+  const i = mantissa.indexOf(".");
+  const inMantissa = i < 0 ? 0 : mantissa.length - i - 1;
+  return Math.max(0, inMantissa - Number(exp));
 }
 
 /**

@@ -20,6 +20,10 @@ export interface LogState {
   askPersistence: () => Promise<void>;
 }
 
+/** Entries read before the list first shows, and per page after that. */
+const FIRST_PAGE = 50;
+const PAGE = 1000;
+
 export function useLog(): LogState {
   const [store, setStore] = useState<LogStore | null>(null);
   const [summaries, setSummaries] = useState<LogSummary[]>([]);
@@ -35,14 +39,17 @@ export function useLog(): LogState {
     if (!s) return;
     setLoading(true);
     try {
+      // The newest entries show as soon as the first page is read; older pages follow.
       const out: LogSummary[] = [];
-      let page = await s.list({ limit: 500 });
+      let page = await s.list({ limit: FIRST_PAGE });
       out.push(...page.entries.map(summarise));
+      setSummaries(out.slice());
+      setLoading(false);
       while (page.next) {
-        page = await s.list({ limit: 500, after: page.next });
+        page = await s.list({ limit: PAGE, after: page.next });
         out.push(...page.entries.map(summarise));
       }
-      setSummaries(out);
+      if (out.length > FIRST_PAGE) setSummaries(out);
       setProblem(null);
     } catch (e) {
       setProblem(e instanceof Error ? e.message : String(e));
