@@ -49,6 +49,7 @@
  */
 
 import { ScenarioError } from "./errors.ts";
+import { TABLE_SKIES } from "./stability.ts";
 import type {
   HotRelease,
   LimitUnit,
@@ -121,15 +122,8 @@ export const MAX_LIMITS = 100;
 export const MAX_POINTS = 1000;
 export const MAX_LABEL_LENGTH = 80;
 
-export const SKY_VALUES: readonly Sky[] = [
-  "strong-sun",
-  "moderate-sun",
-  "slight-sun",
-  "overcast",
-  "night-cloudy",
-  "night-clear",
-  "sun",
-];
+/** The skies a scenario may give: the table's, or "sun" (strength from the sun's elevation). */
+export const SKY_VALUES: readonly Sky[] = [...TABLE_SKIES, "sun"];
 const TERRAINS: readonly Terrain[] = ["open", "urban"];
 const SCHEMES: readonly SigmaScheme[] = ["briggs", "pasquill-gifford"];
 const UNITS: readonly LimitUnit[] = ["ppm", "mg/m3"];

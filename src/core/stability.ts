@@ -77,7 +77,8 @@ function windRow(u: number): number {
   return 4;
 }
 
-const TABLE_SKIES: readonly TableSky[] = [
+/** The skies the table knows, in its column order (overcast: both day and night). */
+export const TABLE_SKIES: readonly TableSky[] = [
   "strong-sun",
   "moderate-sun",
   "slight-sun",

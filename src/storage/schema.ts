@@ -7,14 +7,7 @@
  *   every entry has a `note` ("" when none was given; v1 entries get "").
  */
 import type { DBSchema } from "idb";
-import type {
-  BandOutput,
-  EstimateOutput,
-  PointOutput,
-  Scenario,
-  StabilityClass,
-  Warning,
-} from "../core/types.ts";
+import type { EstimateOutput, Scenario } from "../core/types.ts";
 
 export const DB_NAME = "driftmark";
 export const DB_VERSION = 2;
@@ -36,18 +29,7 @@ export interface Place {
  * recomputed from `scenario` when the footprint is needed again; the figures a responder acts on
  * (bands, points, warnings, stability, model version) are kept exactly as they were shown.
  */
-export interface LoggedResults {
-  model_version: string;
-  caution: string;
-  wind_speed_used_m_s: number;
-  release_height_used_m: number;
-  effective_height_m: number;
-  stability_used: StabilityClass;
-  stability_reason: string;
-  bands: BandOutput[];
-  points: PointOutput[];
-  warnings: Warning[];
-}
+export type LoggedResults = Omit<EstimateOutput, "footprint" | "geojson">;
 
 /** One logged estimate. Never edited: only added or deleted (glossary: Log). */
 export interface LogEntry {
