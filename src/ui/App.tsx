@@ -5,7 +5,7 @@ import type { EstimateOutput, Scenario } from "../core/types.ts";
 import { CautionBanner } from "./components/CautionBanner.tsx";
 import { FootprintView } from "./components/FootprintView.tsx";
 import { LimitsSection } from "./components/LimitsSection.tsx";
-import { PlaceSection } from "./components/PlaceSection.tsx";
+import { PlaceSection, type PositionFix } from "./components/PlaceSection.tsx";
 import { ReleaseSection } from "./components/ReleaseSection.tsx";
 import { Results } from "./components/Results.tsx";
 import { Toolbar } from "./components/Toolbar.tsx";
@@ -61,6 +61,7 @@ export function App({ makeEstimator }: AppProps = {}) {
   const [theme, setTheme] = useState<Theme>(loadTheme);
   const [units, setUnits] = useState<UnitSystem>(loadUnits);
   const [view, setView] = useState<"main" | "about">("main");
+  const [positionFix, setPositionFix] = useState<PositionFix | null>(null);
   const previous = useRef<Evaluation["last"]>(null);
   const estimator = useRef<AsyncEstimator | null>(null);
   const show = (ev: Evaluation) => {
@@ -182,7 +183,13 @@ export function App({ makeEstimator }: AppProps = {}) {
             suggestion={suggestion}
           />
           <LimitsSection form={screen.form} dispatch={dispatch} errors={errors} />
-          <PlaceSection form={screen.form} dispatch={dispatch} errors={errors} units={units} />
+          <PlaceSection
+            form={screen.form}
+            dispatch={dispatch}
+            errors={errors}
+            units={units}
+            onFix={setPositionFix}
+          />
         </form>
         <section
           class={`results-section${evaluation.stale ? " is-stale" : ""}`}
@@ -233,6 +240,7 @@ export function App({ makeEstimator }: AppProps = {}) {
           scenario={evaluation.stale ? null : (last?.scenario ?? null)}
           result={evaluation.stale ? null : (last?.output ?? null)}
           onReopen={loadScenario}
+          positionFix={positionFix}
         />
       </main>
     </div>

@@ -94,6 +94,50 @@ describe("the log in the browser", () => {
     }
   });
 
+  it("keeps the device's position accuracy with an entry logged from that position", async () => {
+    const b = await launchBrowser({ profileDir: profile() });
+    try {
+      const { page, context } = b;
+      await context.grantPermissions(["geolocation"], { origin: new URL(app.url).origin });
+      await context.setGeolocation({ latitude: 46.5, longitude: 7.25, accuracy: 35 });
+      await page.goto(app.url);
+      await expect.poll(() => shownCount(page), { timeout: 15_000 }).toBe(0);
+      await page.getByRole("button", { name: "Use my position" }).click();
+      await expect
+        .poll(() => page.getByText(/^Position found, accurate to about/).isVisible(), {
+          timeout: 10_000,
+        })
+        .toBe(true);
+      expect(await page.getByLabel("Latitude").inputValue()).toBe("46.5");
+      // The estimate on screen (the one logged) follows the new place.
+      await expect
+        .poll(() => page.getByText(/Source at 46\.5° N, 7\.25° E/).isVisible(), { timeout: 10_000 })
+        .toBe(true);
+      const log = page.getByRole("button", { name: "Log this estimate" });
+      await expect.poll(() => log.isEnabled(), { timeout: 15_000 }).toBe(true);
+      await log.click();
+      await expect
+        .poll(() => page.getByText(/^Logged: estimate of/).isVisible(), { timeout: 10_000 })
+        .toBe(true);
+      // Read the stored entry straight from IndexedDB (schema: src/storage/schema.ts).
+      const place = await page.evaluate(
+        () =>
+          new Promise<unknown>((done, fail) => {
+            const req = indexedDB.open("driftmark");
+            req.onerror = () => fail(req.error);
+            req.onsuccess = () => {
+              const all = req.result.transaction("estimates").objectStore("estimates").getAll();
+              all.onsuccess = () => done((all.result[0] as { place: unknown }).place);
+              all.onerror = () => fail(all.error);
+            };
+          }),
+      );
+      expect(place).toEqual({ lat: 46.5, lon: 7.25, accuracy_m: 35 });
+    } finally {
+      await b.close();
+    }
+  });
+
   it("has an entry written just before the browser is closed on the next open", async () => {
     const dir = profile();
     const first = await launchBrowser({ profileDir: dir });

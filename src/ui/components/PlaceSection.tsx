@@ -4,6 +4,13 @@ import { formatDistance, roundSig, type UnitSystem } from "../units.ts";
 import { TextField } from "./Field.tsx";
 import { type SectionProps, setter } from "./types.ts";
 
+/** A position from the device: where (degrees) and how accurate (m). */
+export interface PositionFix {
+  lat: number;
+  lon: number;
+  accuracyM: number;
+}
+
 type GeoStatus =
   | { kind: "idle" }
   | { kind: "asking" }
@@ -21,7 +28,12 @@ export function PlaceSection({
   dispatch,
   errors,
   units,
-}: SectionProps & { units: UnitSystem }) {
+  onFix,
+}: SectionProps & {
+  units: UnitSystem;
+  /** Told of each device position with its accuracy, so the log can keep the accuracy. */
+  onFix?: (fix: PositionFix) => void;
+}) {
   const set = setter(dispatch);
   const [geo, setGeo] = useState<GeoStatus>({ kind: "idle" });
   const locate = () => {
@@ -35,12 +47,11 @@ export function PlaceSection({
     setGeo({ kind: "asking" });
     navigator.geolocation.getCurrentPosition(
       (pos) => {
-        dispatch({
-          type: "place",
-          lat: String(roundSig(pos.coords.latitude, 8)),
-          lon: String(roundSig(pos.coords.longitude, 8)),
-        });
+        const lat = roundSig(pos.coords.latitude, 8);
+        const lon = roundSig(pos.coords.longitude, 8);
+        dispatch({ type: "place", lat: String(lat), lon: String(lon) });
         setGeo({ kind: "got", accuracyM: pos.coords.accuracy });
+        onFix?.({ lat, lon, accuracyM: pos.coords.accuracy });
       },
       (err) => setGeo({ kind: "failed", message: GEO_ERRORS[err.code] ?? err.message }),
       { enableHighAccuracy: true, timeout: 20_000, maximumAge: 60_000 },

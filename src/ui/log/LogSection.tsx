@@ -32,6 +32,8 @@ export interface LogSectionProps {
   result: EstimateOutput | null;
   /** Load a logged entry's inputs into the screen as a new estimate. */
   onReopen: (scenario: Scenario) => void;
+  /** The last position the device gave, with its accuracy (m); null when none. */
+  positionFix?: { lat: number; lon: number; accuracyM: number } | null;
 }
 
 /** The word to type before the whole log is deleted. */
@@ -43,7 +45,7 @@ function message(e: unknown): string {
   return e instanceof Error ? e.message : String(e);
 }
 
-export function LogSection({ scenario, result, onReopen }: LogSectionProps) {
+export function LogSection({ scenario, result, onReopen, positionFix = null }: LogSectionProps) {
   const log = useLog();
   const [note, setNote] = useState("");
   const [notice, setNotice] = useState<{ text: string; alert?: boolean } | null>(null);
@@ -107,7 +109,17 @@ export function LogSection({ scenario, result, onReopen }: LogSectionProps) {
     const entry = newEntry({
       scenario,
       result,
-      place: src ? { lat: src.lat, lon: src.lon, accuracy_m: null } : null,
+      place: src
+        ? {
+            lat: src.lat,
+            lon: src.lon,
+            // The device's accuracy, while the place is still the one the device gave.
+            accuracy_m:
+              positionFix && positionFix.lat === src.lat && positionFix.lon === src.lon
+                ? positionFix.accuracyM
+                : null,
+          }
+        : null,
       note: withNote.trim(),
     });
     lastLogged.current = { result, entry };
