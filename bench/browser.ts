@@ -286,6 +286,8 @@ async function logListing(
   try {
     await b.page.goto(url);
     const count = b.page.locator('[data-testid="log-count"]');
+    // The log section loads after the first estimate is on screen.
+    await count.waitFor({ timeout: 15_000 }).catch(() => undefined);
     if ((await count.count()) === 0) return { missing: 'no data-testid="log-count" on the page' };
     await b.page.waitForFunction(
       () =>
