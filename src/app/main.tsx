@@ -26,7 +26,14 @@ function lazyEstimator(): AsyncEstimator {
   };
 }
 
-if (root) render(<App makeEstimator={lazyEstimator} />, root);
+if (root) {
+  render(<App makeEstimator={lazyEstimator} />, root);
+  // The first estimate is computed during that render: mark the moment (the size budget test
+  // counts the scripts fetched before it).
+  performance.mark("driftmark-first-render", {
+    detail: { estimate: root.querySelector('[data-testid="band-reach-0"]') !== null },
+  });
+}
 if (statusRoot) render(<UpdateStatus />, statusRoot);
 
 // index.html carries the caution as static text so it shows before (and without) the script.

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useReducer, useRef, useState } from "preact/hooks";
 import { ScenarioError } from "../core/errors.ts";
-import { centrelineProfile, estimateLocal } from "../core/estimate.ts";
+import { estimateLocal } from "../core/estimate.ts";
 import type { EstimateOutput, Scenario } from "../core/types.ts";
 import { CautionBanner } from "./components/CautionBanner.tsx";
 import { FootprintView } from "./components/FootprintView.tsx";
@@ -15,7 +15,6 @@ import { DEMO_SCENARIO } from "./demo.ts";
 import { type Evaluation, evaluate, readForm, settle } from "./evaluate.ts";
 import { groupProblems } from "./form.ts";
 import { bandStyles } from "./palette.ts";
-import { makeProfile } from "./profile.ts";
 import {
   initialScreen,
   loadTheme,
@@ -127,14 +126,6 @@ export function App({ makeEstimator }: AppProps = {}) {
     () => bandStyles(last?.output.bands.map((b) => b.limit_mg_m3) ?? []),
     [last],
   );
-  const profile = useMemo(() => {
-    if (!last) return null;
-    try {
-      return makeProfile(last.scenario, last.output, centrelineProfile);
-    } catch {
-      return null;
-    }
-  }, [last]);
   const suggestion = useMemo(() => suggestionFor(screen.form, nowIso()), [screen.form]);
   const loadScenario = (s: Scenario) => dispatch({ type: "load", scenario: s, origin: "user" });
 
@@ -228,9 +219,12 @@ export function App({ makeEstimator }: AppProps = {}) {
                 styles={styles}
                 limits={last.scenario.limits}
               />
-              {profile ? (
-                <DeferredCentrelineChart profile={profile} styles={styles} units={units} />
-              ) : null}
+              <DeferredCentrelineChart
+                scenario={last.scenario}
+                output={last.output}
+                styles={styles}
+                units={units}
+              />
             </>
           ) : (
             <p>Enter the release, weather and at least one limit to see the footprint.</p>

@@ -6,16 +6,8 @@
  */
 import type { ComponentType } from "preact";
 import { useEffect, useState } from "preact/hooks";
+import type { ProfileChartProps } from "./components/ProfileChart.tsx";
 import type { LogSectionProps } from "./log/LogSection.tsx";
-import type { BandStyle } from "./palette.ts";
-import type { Profile } from "./profile.ts";
-import type { UnitSystem } from "./units.ts";
-
-export interface ChartProps {
-  profile: Profile;
-  styles: readonly BandStyle[];
-  units: UnitSystem;
-}
 
 /** Load a component once; later calls share the same promise. */
 function once<P>(load: () => Promise<ComponentType<P>>): () => Promise<ComponentType<P>> {
@@ -29,8 +21,8 @@ function once<P>(load: () => Promise<ComponentType<P>>): () => Promise<Component
 export const loadLogSection = once<LogSectionProps>(() =>
   import("./log/LogSection.tsx").then((m) => m.LogSection),
 );
-export const loadCentrelineChart = once<ChartProps>(() =>
-  import("./components/CentrelineChart.tsx").then((m) => m.CentrelineChart),
+export const loadCentrelineChart = once<ProfileChartProps>(() =>
+  import("./components/ProfileChart.tsx").then((m) => m.ProfileChart),
 );
 export const loadAboutPage = once<{ onBack: () => void }>(() =>
   import("./components/AboutPage.tsx").then((m) => m.AboutPage),
@@ -79,7 +71,7 @@ export function DeferredAboutPage(props: { onBack: () => void }) {
 }
 
 /** The centreline chart, loaded once the first estimate has been drawn. */
-export function DeferredCentrelineChart(props: ChartProps) {
+export function DeferredCentrelineChart(props: ProfileChartProps) {
   const C = useDeferred(loadCentrelineChart, true);
   return C ? <C {...props} /> : null;
 }
