@@ -168,7 +168,7 @@ export function estimateLocal(scenario: Scenario | unknown): EstimateOutput {
       reach_m: sol.reach,
       start_m: sol.start,
       max_width_m: sol.sweptMaxWidth,
-      max_width_at_m: sol.maxWidthAt,
+      max_width_at_m: sol.sweptMaxWidthAt,
       area_m2: sol.sweptArea,
       arrives_s: far?.arrives ?? null,
       clears_s: far?.clears ?? null,
@@ -176,7 +176,8 @@ export function estimateLocal(scenario: Scenario | unknown): EstimateOutput {
   });
 
   const mw = parsed.molecularWeight;
-  const points: PointOutput[] = parsed.points.map((pt) => {
+  const points: PointOutput[] = parsed.points.map((pt, i) => {
+    pointWarnings(warnings, i, pt.x);
     const c = prep.plume(pt.averaging).concentration(pt.x, pt.y, pt.z) * 1000;
     return {
       x_m: pt.x,
@@ -298,13 +299,44 @@ function bandWarnings(
   }
 }
 
-function warn(list: Warning[], code: WarningCode, message: string, limit?: string): void {
-  if (list.some((w) => w.code === code && w.limit === limit)) return;
-  list.push(limit === undefined ? { code, message } : { code, message, limit });
+function pointWarnings(warnings: Warning[], i: number, x: number): void {
+  const where = `Point ${i + 1} (${fmt(x)} m downwind)`;
+  if (!(x > 0)) {
+    warn(
+      warnings,
+      "upwind-point",
+      `${where} is at or upwind of the source: the model describes nothing upwind and gives 0 there. ` +
+        "Near a real source gas can spread upwind, above all a dense gas.",
+      { point: i },
+    );
+  } else if (x < CURVE_RANGE_M.min || x > CURVE_RANGE_M.max) {
+    warn(
+      warnings,
+      "outside-curve-range",
+      `${where} is outside the 100 m – 10 km range the dispersion curves were fitted for; the ` +
+        "concentration there is less certain.",
+      { point: i },
+    );
+  }
 }
 
+function warn(
+  list: Warning[],
+  code: WarningCode,
+  message: string,
+  about?: string | { point: number },
+): void {
+  const limit = typeof about === "string" ? about : undefined;
+  const point = typeof about === "object" ? about.point : undefined;
+  if (list.some((w) => w.code === code && w.limit === limit && w.point === point)) return;
+  const w: Warning = { code, message };
+  if (limit !== undefined) w.limit = limit;
+  if (point !== undefined) w.point = point;
+  list.push(w);
+}
+
+/** A number for a message: whole above 100, else three significant digits, no trailing zeros. */
 function fmt(v: number): string {
   if (!Number.isFinite(v)) return String(v);
-  const a = Math.abs(v);
-  return a >= 100 ? v.toFixed(0) : a >= 10 ? v.toFixed(1) : v.toPrecision(2);
+  return Math.abs(v) >= 100 ? v.toFixed(0) : String(Number(v.toPrecision(3)));
 }

@@ -29,6 +29,8 @@ export interface BandSolution {
   /** Widest crosswind extent 2·max w (m) and where (m), of the unswept band. */
   maxWidth: number | null;
   maxWidthAt: number | null;
+  /** Downwind distance (m) of the swept band's widest point (= maxWidthAt for a zero swing). */
+  sweptMaxWidthAt: number | null;
   /** ∫ 2w dx (m²) of the unswept band. */
   area: number | null;
   /** Unswept outline. */
@@ -102,6 +104,7 @@ export function solveBand(plume: Plume, limit: number, zr: number, swingDeg: num
       intervals,
       maxWidth: null,
       maxWidthAt: null,
+      sweptMaxWidthAt: null,
       area: null,
       outline: [],
       swept: [],
@@ -160,7 +163,13 @@ export function solveBand(plume: Plume, limit: number, zr: number, swingDeg: num
   const alpha = (Math.abs(swingDeg) * Math.PI) / 180;
   const swept = alpha > 0 ? sweptRing(Array.from(xs), Array.from(ws), alpha) : outline;
   let maxY = 0;
-  for (const p of swept) if (p[1] > maxY) maxY = p[1];
+  let maxYAt = maxAt;
+  for (const p of swept) {
+    if (p[1] > maxY) {
+      maxY = p[1];
+      maxYAt = p[0];
+    }
+  }
   return {
     limit,
     reach,
@@ -169,6 +178,7 @@ export function solveBand(plume: Plume, limit: number, zr: number, swingDeg: num
     intervals,
     maxWidth: 2 * maxW,
     maxWidthAt: maxAt,
+    sweptMaxWidthAt: alpha > 0 ? maxYAt : maxAt,
     area,
     outline,
     swept,

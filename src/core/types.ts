@@ -107,6 +107,8 @@ export interface Warning {
   message: string;
   /** Label of the limit the warning is about, when it concerns one band only. */
   limit?: string;
+  /** Index in the scenario's `points` of the point the warning is about, when it concerns one. */
+  point?: number;
 }
 
 export type WarningCode =
@@ -121,7 +123,8 @@ export type WarningCode =
   | "stable-low-wind"
   | "split-class"
   | "night-by-clock"
-  | "near-zone-only";
+  | "near-zone-only"
+  | "upwind-point";
 
 export interface BandOutput {
   label: string;
@@ -132,7 +135,7 @@ export interface BandOutput {
   start_m: number | null;
   /** Widest crosswind extent (m); of the swept band when a wind swing is given. */
   max_width_m: number | null;
-  /** Downwind distance of the widest point of the unswept band (m). */
+  /** Downwind distance of the widest point (m); of the swept band when a wind swing is given. */
   max_width_at_m: number | null;
   /** Ground area (m²); of the swept band when a wind swing is given. */
   area_m2: number | null;

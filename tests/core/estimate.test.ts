@@ -153,6 +153,18 @@ describe("estimate(): nulls and the swing", () => {
     expect(swung.footprint.wind_swing_deg).toBe(15);
   });
 
+  it("with a wind swing, the widest point is where the swept outline is widest", () => {
+    const swung = estimate({ ...base, wind_swing_deg: 15 });
+    swung.bands.forEach((band, i) => {
+      const ring = swung.footprint.bands[i]?.swept ?? [];
+      // The vertex of largest crosswind offset: its offset is half the width, its x the place.
+      const widest = ring.reduce((a, p) => (p[1] > a[1] ? p : a), [0, 0] as [number, number]);
+      expect(band.max_width_m).toBeCloseTo(2 * widest[1], 9);
+      expect(band.max_width_at_m).toBeCloseTo(widest[0], 9);
+      expect(band.max_width_at_m as number).toBeLessThanOrEqual(band.reach_m as number);
+    });
+  });
+
   it("the footprint heads toward wind-from + 180° (model.md Coordinates)", () => {
     expect(estimate(base).footprint.heading_deg).toBe(70);
     expect(
@@ -174,6 +186,34 @@ describe("estimate(): nulls and the swing", () => {
     expect(t?.clears_s as number).toBeGreaterThan(t?.arrives_s as number);
     // all at once: the cloud passes and clears, centred on the travel time x/u = 1000/3 s
     expect(((t?.arrives_s as number) + (t?.clears_s as number)) / 2).toBeCloseTo(1000 / 3, 3);
+  });
+});
+
+describe("estimate(): warnings about the points", () => {
+  const out = (xs: number[]) =>
+    estimate({ ...base, points: xs.map((x_m) => ({ x_m, y_m: 0 })) }).warnings;
+
+  it("a point outside 100 m – 10 km downwind gets outside-curve-range naming that point (model.md)", () => {
+    const w = out([1000, 50, 20_000]);
+    const about = w.filter((x) => x.code === "outside-curve-range" && x.point !== undefined);
+    expect(about.map((x) => x.point)).toEqual([1, 2]);
+    expect(about[0]?.message).toMatch(/Point 2 \(50 m downwind\)/);
+  });
+
+  it("a point at or upwind of the source gets upwind-point, and its concentration is 0", () => {
+    const o = estimate({
+      ...base,
+      points: [
+        { x_m: -200, y_m: 0 },
+        { x_m: 0, y_m: 5 },
+      ],
+    });
+    expect(o.warnings.filter((x) => x.code === "upwind-point").map((x) => x.point)).toEqual([0, 1]);
+    expect(o.points.map((p) => p.concentration_mg_m3)).toEqual([0, 0]);
+  });
+
+  it("points inside the range raise no point warning", () => {
+    expect(out([100, 1000, 10_000]).filter((x) => x.point !== undefined)).toEqual([]);
   });
 });
 
