@@ -3,7 +3,6 @@ import { render } from "preact";
 import { CAUTION } from "../core/caution.ts";
 import type { AsyncEstimator } from "../ui/App.tsx";
 import { App } from "../ui/App.tsx";
-import { UpdateStatus } from "./UpdateStatus.tsx";
 import "./shell.css";
 
 const root = document.getElementById("root");
@@ -34,7 +33,6 @@ if (root) {
     detail: { estimate: root.querySelector('[data-testid="band-reach-0"]') !== null },
   });
 }
-if (statusRoot) render(<UpdateStatus />, statusRoot);
 
 // index.html carries the caution as static text so it shows before (and without) the script.
 // Hide that copy only while the rendered app shows the caution itself — never leave none.
@@ -52,7 +50,7 @@ if (root && staticCaution) {
 // first estimate for the phone's CPU.
 if (import.meta.env.PROD) {
   const register = () => {
-    import("./register-sw.ts").then((m) => m.registerServiceWorker());
+    import("./sw-start.tsx").then((m) => m.startServiceWorker(statusRoot));
   };
   if (document.readyState === "complete") register();
   else window.addEventListener("load", register, { once: true });

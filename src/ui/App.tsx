@@ -5,6 +5,7 @@ import type { EstimateOutput, Scenario } from "../core/types.ts";
 import { CautionBanner } from "./components/CautionBanner.tsx";
 import { FootprintView } from "./components/FootprintView.tsx";
 import { LimitsSection } from "./components/LimitsSection.tsx";
+import { ModelSection } from "./components/ModelSection.tsx";
 import { PlaceSection, type PositionFix } from "./components/PlaceSection.tsx";
 import { ReleaseSection } from "./components/ReleaseSection.tsx";
 import { Results } from "./components/Results.tsx";
@@ -139,7 +140,7 @@ export function App({ makeEstimator }: AppProps = {}) {
   }
   const src = last?.scenario.source;
   const placeText = src
-    ? `Source at ${src.lat}° N, ${src.lon}° E.`
+    ? `Source at ${Math.abs(src.lat)}° ${src.lat < 0 ? "S" : "N"}, ${Math.abs(src.lon)}° ${src.lon < 0 ? "W" : "E"}.`
     : "No place given: drawn relative to the source.";
   const ongoing =
     last?.scenario.release.kind === "continuous" && last.scenario.release.duration_s === undefined;
@@ -181,6 +182,7 @@ export function App({ makeEstimator }: AppProps = {}) {
             units={units}
             onFix={setPositionFix}
           />
+          <ModelSection form={screen.form} dispatch={dispatch} errors={errors} />
         </form>
         <section
           class={`results-section${evaluation.stale ? " is-stale" : ""}`}

@@ -58,14 +58,14 @@ export function bandFigures(
       rows.push({
         key: "arrives",
         label: "Arrives at far end",
-        value: `${formatDuration(b.arrives_s, "down")} after release start`,
+        value: `${formatDuration(b.arrives_s, "down")} after release start (cloud front)`,
       });
       rows.push({
         key: "clears",
         label: "Clears far end",
         value:
           b.clears_s !== null
-            ? `${formatDuration(b.clears_s, "up")} after release start`
+            ? `${formatDuration(b.clears_s, "up")} after release start (cloud back)`
             : ongoing
               ? "Not while the release goes on"
               : "Not computed",

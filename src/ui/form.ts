@@ -7,7 +7,14 @@
  * `problemsFromCore` maps the core's `ScenarioError` problem fields (dotted
  * paths such as `release.rate_g_s` or `limits[0].value`) back to those inputs.
  */
-import type { LimitUnit, Scenario, ScenarioProblem, Sky, StabilityClass } from "../core/types.ts";
+import type {
+  LimitUnit,
+  Scenario,
+  ScenarioProblem,
+  SigmaScheme,
+  Sky,
+  StabilityClass,
+} from "../core/types.ts";
 import {
   type LengthUnit,
   lengthFromM,
@@ -67,6 +74,10 @@ export interface FormState {
   windSwing: string;
   /** Near-zone radius in m, as typed (blank = the model's default). */
   nearZone: string;
+  /** Breathing (receptor) height in m, as typed (blank = the model's 1.5 m). */
+  receptorHeight: string;
+  /** Dispersion curves: Briggs (the model's default) or Pasquill–Gifford. */
+  scheme: SigmaScheme;
   sky: Sky;
   /** "auto" = use the suggested class. */
   stability: StabilityClass | "auto";
@@ -94,6 +105,8 @@ export const FIELD = {
   windFrom: "wind-from",
   windSwing: "wind-swing",
   nearZone: "near-zone",
+  receptorHeight: "receptor-height",
+  scheme: "scheme",
   sky: "sky",
   stability: "stability",
   terrain: "terrain",
@@ -122,6 +135,8 @@ export const FIELD_LABEL: Record<string, string> = {
   [FIELD.windFrom]: "Wind from",
   [FIELD.windSwing]: "Wind swing",
   [FIELD.nearZone]: "Near zone radius",
+  [FIELD.receptorHeight]: "Breathing height",
+  [FIELD.scheme]: "Dispersion curves",
   [FIELD.sky]: "Sky",
   [FIELD.stability]: "Stability class",
   [FIELD.terrain]: "Ground",
@@ -183,6 +198,8 @@ export function initialForm(): FormState {
     windFrom: "",
     windSwing: "0",
     nearZone: "100",
+    receptorHeight: "1.5",
+    scheme: "briggs",
     sky: "overcast",
     stability: "auto",
     terrain: "open",
@@ -343,6 +360,7 @@ function build(
   }
   const swing = num(FIELD.windSwing, form.windSwing, false);
   const nz = num(FIELD.nearZone, form.nearZone, false);
+  const zr = num(FIELD.receptorHeight, form.receptorHeight, false);
   const mix = num(FIELD.mixingHeight, form.mixingHeight, false);
   const usesPpm = form.limits.some((l) => l.unit === "ppm");
   let mw = num(FIELD.molecularWeight, form.molecularWeight, false);
@@ -409,6 +427,8 @@ function build(
     ...(mw !== undefined ? { molecular_weight_g_mol: mw } : {}),
     ...(swing !== undefined ? { wind_swing_deg: swing } : {}),
     ...(nz !== undefined ? { near_zone_m: nz } : {}),
+    ...(zr !== undefined ? { receptor_height_m: zr } : {}),
+    ...(form.scheme !== "briggs" ? { sigma_scheme: form.scheme } : {}),
     ...(latV !== undefined && lonV !== undefined ? { source: { lat: latV, lon: lonV } } : {}),
   };
   return { scenario, problems };
@@ -446,6 +466,8 @@ export function fieldForPath(path: string): string {
     [/^molecular_weight/, FIELD.molecularWeight],
     [/^wind_swing/, FIELD.windSwing],
     [/^near_zone/, FIELD.nearZone],
+    [/^receptor_height/, FIELD.receptorHeight],
+    [/^sigma_scheme/, FIELD.scheme],
     [/^source\.lon/, FIELD.lon],
     [/^source/, FIELD.lat],
     [/^limits/, FIELD.limits],
@@ -509,6 +531,8 @@ export function formFromScenario(s: Scenario): FormState {
   f.molecularWeight = s.molecular_weight_g_mol === undefined ? "" : tidy(s.molecular_weight_g_mol);
   f.windSwing = tidy(s.wind_swing_deg ?? 0);
   f.nearZone = tidy(s.near_zone_m ?? 100);
+  f.receptorHeight = tidy(s.receptor_height_m ?? 1.5);
+  f.scheme = s.sigma_scheme ?? "briggs";
   f.limits = s.limits.map((l) => ({
     name: l.label,
     value: tidy(l.value),

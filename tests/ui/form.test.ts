@@ -218,6 +218,32 @@ describe("formFromScenario", () => {
   });
 });
 
+describe("model settings", () => {
+  it("keep a logged scenario's near zone, breathing height and dispersion curves on reopening", () => {
+    const s: Scenario = {
+      ...(demo as unknown as Scenario),
+      near_zone_m: 250,
+      receptor_height_m: 2.5,
+      sigma_scheme: "pasquill-gifford",
+    };
+    const r = buildScenario(formFromScenario(s), ctx);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.scenario.near_zone_m).toBe(250);
+    expect(r.scenario.receptor_height_m).toBe(2.5);
+    expect(r.scenario.sigma_scheme).toBe("pasquill-gifford");
+    const a = estimate({ ...s, points: [] }).bands.map((b) => b.reach_m);
+    expect(estimate(r.scenario).bands.map((b) => b.reach_m)).toEqual(a);
+  });
+
+  it("a breathing height the core refuses is marked on its input by label", () => {
+    const f = { ...filled(), receptorHeight: "250" };
+    const ev = evaluate(f, ctx, estimate, null);
+    const p = ev.problems.find((x) => x.field === "receptor-height");
+    expect(p?.message).toMatch(/^Breathing height/);
+  });
+});
+
 describe("every problem at once", () => {
   it("marks a negative rate even while another field cannot be read yet", () => {
     const ev = evaluate({ ...filled(), rate: "-5", windFrom: "xyz" }, ctx, estimate, null);

@@ -246,8 +246,8 @@ describe("band figures", () => {
     expect(f.width).toBe("210 m");
     expect(f.area).toBe("68,000 m²");
     expect(f.start).toBeUndefined(); // 1.8 m: the band starts at the source
-    expect(f.arrives).toBe("2 min after release start");
-    expect(f.clears).toBe("18 min after release start");
+    expect(f.arrives).toBe("2 min after release start (cloud front)");
+    expect(f.clears).toBe("18 min after release start (cloud back)");
     expect(f.limit).toBe("28 mg/m³ averaged over 30 min");
     const ppm = bandFigures(BAND, "metric", false, {
       label: "Tier",

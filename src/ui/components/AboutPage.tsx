@@ -113,6 +113,11 @@ export function AboutPage({ onBack }: { onBack: () => void }) {
         lists the model's own warnings next to the figures they affect. Model version{" "}
         {MODEL_VERSION}.
       </p>
+      <p>
+        <strong>Arrives and clears at a band's far end</strong> are when the front and the back of
+        the cloud pass there, counted from the start of the release; the front and back are where
+        the concentration is half its peak at that spot. A release that goes on never clears.
+      </p>
       <h3>Checked against field measurements</h3>
       <ModelCheckPart />
       <button type="button" onClick={onBack}>

@@ -158,7 +158,11 @@ export function FootprintView({
         </g>
       </svg>
       <figcaption>
-        <span>North up. Swept area: band turned through the wind swing ±{fp.wind_swing_deg}°.</span>{" "}
+        <span>
+          {fp.wind_swing_deg > 0
+            ? `North up. Swept area: band turned through the wind swing ±${fp.wind_swing_deg}°.`
+            : "North up. No wind swing: bands along the mean wind only."}
+        </span>{" "}
         <span>{placeText}</span>
       </figcaption>
       <div class="map-tools">
