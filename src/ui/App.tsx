@@ -31,6 +31,9 @@ import type { UnitSystem } from "./units.ts";
 import "./style.css";
 
 const nowIso = () => new Date().toISOString();
+/** More limits than this and even the first estimate is left to the worker. */
+const FIRST_ON_PAGE_MAX_LIMITS = 10;
+
 /** Pause after the last keystroke before recomputing (ms). */
 const TYPING_PAUSE_MS = 60;
 
@@ -68,8 +71,13 @@ export function App({ makeEstimator }: AppProps = {}) {
     previous.current = ev.last;
     setEvaluation(ev);
   };
-  // The first estimate is computed here, so the first screen shows it without waiting for a worker.
+  // The first estimate is computed here, so the first screen shows it without waiting for a
+  // worker — unless the restored inputs are heavy (many limits), which go to the worker too.
+  const firstInWorker = useRef(
+    makeEstimator !== undefined && screen.form.limits.length > FIRST_ON_PAGE_MAX_LIMITS,
+  );
   const [evaluation, setEvaluation] = useState<Evaluation>(() => {
+    if (firstInWorker.current) return { last: null, stale: false, problems: [] };
     const ev = evaluate(screen.form, { timeIso: nowIso() }, estimateLocal, null);
     previous.current = ev.last;
     return ev;
@@ -106,6 +114,7 @@ export function App({ makeEstimator }: AppProps = {}) {
   useEffect(() => {
     if (firstRun.current) {
       firstRun.current = false;
+      if (firstInWorker.current) recompute(screen.form);
       return;
     }
     const timer = setTimeout(() => recompute(screen.form), TYPING_PAUSE_MS);

@@ -268,6 +268,37 @@ describe("accessibility and reach", () => {
     expect(await page.getByLabel("Limit value", { exact: true }).count()).toBeGreaterThan(0);
   });
 
+  it("leaves a heavy restored screen (12 limits) to the worker, first render included", async () => {
+    const own = await launchBrowser({ viewport: { width: 360, height: 640 } });
+    try {
+      const { page } = own;
+      await page.goto(app.url);
+      await page.getByTestId("band-reach-0").waitFor();
+      // Wait until the screen has been saved, then give the saved form 12 limits.
+      await expect
+        .poll(() => page.evaluate(() => localStorage.getItem("driftmark.screen") !== null))
+        .toBe(true);
+      await page.evaluate(() => {
+        const saved = JSON.parse(localStorage.getItem("driftmark.screen") as string);
+        const first = saved.form.limits[0];
+        saved.form.limits = Array.from({ length: 12 }, (_, i) => ({
+          ...first,
+          name: `Limit ${i + 1} (invented)`,
+          value: String(2 + i),
+        }));
+        localStorage.setItem("driftmark.screen", JSON.stringify(saved));
+      });
+      await page.reload();
+      await page.getByTestId("band-reach-11").waitFor({ timeout: 20_000 });
+      const first = await page.evaluate(
+        () => (performance.getEntriesByName("driftmark-first-render")[0] as PerformanceMark).detail,
+      );
+      expect(first).toEqual({ estimate: false });
+    } finally {
+      await own.close();
+    }
+  });
+
   it("raised no script errors", () => {
     expect(pageErrors).toEqual([]);
   });
