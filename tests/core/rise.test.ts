@@ -52,3 +52,29 @@ describe("final rise Δh", () => {
     expect(plumeRise(small, 300, 3, "F")).toBeLessThan(plumeRise(small, 300, 3, "E"));
   });
 });
+
+describe("final rise Δh against Briggs' two-thirds law at the distance to final rise", () => {
+  // An independent published form: the transitional rise Δh(x) = 1.6·F_b^⅓·x^⅔/u (Briggs 1969,
+  // 1975 "two-thirds law"), evaluated at Briggs' distance to final rise for unstable–neutral air,
+  // x_f = 49·F_b^⅝ (F_b < 55) or 119·F_b^⅖ (F_b ≥ 55) metres (ISC3 user's guide,
+  // EPA-454/B-95-003b, Vol. II §1.1.4.3 — from memory). 1.6·49^⅔ = 21.4 and 1.6·119^⅔ = 38.7
+  // are where the model's constants 21.425 and 38.71 come from; the test does not use them.
+  const twoThirds = (fb: number, x: number, u: number) => (1.6 * fb ** (1 / 3) * x ** (2 / 3)) / u;
+  const cases = [
+    { exitSpeed: 5, diameter: 1, gasTemperature: 350 },
+    { exitSpeed: 10, diameter: 2, gasTemperature: 400 },
+    { exitSpeed: 15, diameter: 3, gasTemperature: 450 },
+    { exitSpeed: 20, diameter: 4, gasTemperature: 600 },
+    { exitSpeed: 25, diameter: 6, gasTemperature: 700 },
+  ];
+  for (const hot of cases) {
+    const fb = buoyancyFlux(hot, 293);
+    for (const u of [2, 5, 10]) {
+      it(`F_b ${fb.toFixed(1)} m⁴/s³, u ${u} m/s: class D final rise within 0.2% of the ⅔ law at x_f`, () => {
+        const xf = fb < 55 ? 49 * fb ** (5 / 8) : 119 * fb ** (2 / 5);
+        const expected = twoThirds(fb, xf, u);
+        expect(Math.abs(plumeRise(hot, 293, u, "D") / expected - 1)).toBeLessThan(2e-3);
+      });
+    }
+  }
+});
