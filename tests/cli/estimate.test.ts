@@ -219,24 +219,13 @@ describe.concurrent("a bad scenario exits 2 with one line naming the field, valu
 // ---------------------------------------------------------------------------
 
 describe.concurrent("a file or command line that cannot be used exits 2 with one plain line", () => {
-  test(
-    "a file that is not JSON",
-    async () => {
-      const file = writeCase("not-json", '{ "release": { "kind": "continuous", ');
-      const r = await run([file]);
-      expect(r.status).toBe(2);
-      const lines = expectCleanFailure(r);
-      expect(lines).toHaveLength(1);
-      expect(lines[0]).toContain(file);
-      expect(lines[0]).toContain("not valid JSON");
-    },
-    TIMEOUT_MS,
-  );
-
-  test(
-    "an empty file",
-    async () => {
-      const file = writeCase("empty", "");
+  test.each([
+    ["a file that is not JSON", "not-json", '{ "release": { "kind": "continuous", '],
+    ["an empty file", "empty", ""],
+  ])(
+    "%s",
+    async (_name, caseName, text) => {
+      const file = writeCase(caseName, text);
       const r = await run([file]);
       expect(r.status).toBe(2);
       const lines = expectCleanFailure(r);

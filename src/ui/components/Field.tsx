@@ -96,13 +96,26 @@ export function TextField<U extends string>(p: TextFieldProps<U>) {
           </div>
         ) : null}
       </div>
+      <FieldFoot id={p.id} hint={p.hint} errors={p.errors} />
+    </div>
+  );
+}
+
+/** Below an input: its hint (`{id}-hint`) and its problems (`{id}-error`). */
+function FieldFoot(p: {
+  id: string;
+  hint?: ComponentChildren;
+  errors?: readonly string[] | undefined;
+}) {
+  return (
+    <>
       {p.hint ? (
-        <p class="hint" id={`${p.id}-hint`}>
+        <div class="hint" id={`${p.id}-hint`}>
           {p.hint}
-        </p>
+        </div>
       ) : null}
       <FieldError id={p.id} messages={p.errors} />
-    </div>
+    </>
   );
 }
 
@@ -135,12 +148,7 @@ export function SelectField<T extends string>(p: {
           </option>
         ))}
       </select>
-      {p.hint ? (
-        <div class="hint" id={`${p.id}-hint`}>
-          {p.hint}
-        </div>
-      ) : null}
-      <FieldError id={p.id} messages={p.errors} />
+      <FieldFoot id={p.id} hint={p.hint} errors={p.errors} />
     </div>
   );
 }
