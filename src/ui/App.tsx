@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useReducer, useRef, useState } from "preact/hooks";
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from "preact/hooks";
 import { ScenarioError } from "../core/errors.ts";
 import { estimateLocal } from "../core/estimate.ts";
 import type { EstimateOutput, Scenario } from "../core/types.ts";
@@ -137,7 +137,52 @@ export function App({ makeEstimator }: AppProps = {}) {
     [last],
   );
   const suggestion = useMemo(() => suggestionFor(screen.form, nowIso()), [screen.form]);
-  const loadScenario = (s: Scenario) => dispatch({ type: "load", scenario: s, origin: "user" });
+  const loadScenario = useCallback(
+    (s: Scenario) => dispatch({ type: "load", scenario: s, origin: "user" }),
+    [],
+  );
+  // The results and the log change only with a new estimate (or units, or a position fix), not
+  // with each keystroke: keep their elements so typing re-renders the form alone.
+  const stale = evaluation.stale;
+  const resultsView = useMemo(() => {
+    if (!last)
+      return <p>Enter the release, weather and at least one limit to see the footprint.</p>;
+    const src = last.scenario.source;
+    const placeText = src
+      ? `Source at ${Math.abs(src.lat)}° ${src.lat < 0 ? "S" : "N"}, ${Math.abs(src.lon)}° ${src.lon < 0 ? "W" : "E"}.`
+      : "No place given: drawn relative to the source.";
+    const ongoing =
+      last.scenario.release.kind === "continuous" && last.scenario.release.duration_s === undefined;
+    return (
+      <>
+        <FootprintView output={last.output} styles={styles} units={units} placeText={placeText} />
+        <Results
+          output={last.output}
+          units={units}
+          ongoing={ongoing}
+          styles={styles}
+          limits={last.scenario.limits}
+        />
+        <DeferredCentrelineChart
+          scenario={last.scenario}
+          output={last.output}
+          styles={styles}
+          units={units}
+        />
+      </>
+    );
+  }, [last, styles, units]);
+  const logView = useMemo(
+    () => (
+      <DeferredLogSection
+        scenario={stale ? null : (last?.scenario ?? null)}
+        result={stale ? null : (last?.output ?? null)}
+        onReopen={loadScenario}
+        positionFix={positionFix}
+      />
+    ),
+    [stale, last, loadScenario, positionFix],
+  );
 
   if (view === "about") {
     return (
@@ -147,12 +192,6 @@ export function App({ makeEstimator }: AppProps = {}) {
       </div>
     );
   }
-  const src = last?.scenario.source;
-  const placeText = src
-    ? `Source at ${Math.abs(src.lat)}° ${src.lat < 0 ? "S" : "N"}, ${Math.abs(src.lon)}° ${src.lon < 0 ? "W" : "E"}.`
-    : "No place given: drawn relative to the source.";
-  const ongoing =
-    last?.scenario.release.kind === "continuous" && last.scenario.release.duration_s === undefined;
   return (
     <div class="app">
       <CautionBanner onLimits={() => setView("about")} showingLimits={false} />
@@ -215,38 +254,9 @@ export function App({ makeEstimator }: AppProps = {}) {
               Out of date: showing the last valid estimate, not the inputs now on screen.
             </p>
           ) : null}
-          {last ? (
-            <>
-              <FootprintView
-                output={last.output}
-                styles={styles}
-                units={units}
-                placeText={placeText}
-              />
-              <Results
-                output={last.output}
-                units={units}
-                ongoing={ongoing}
-                styles={styles}
-                limits={last.scenario.limits}
-              />
-              <DeferredCentrelineChart
-                scenario={last.scenario}
-                output={last.output}
-                styles={styles}
-                units={units}
-              />
-            </>
-          ) : (
-            <p>Enter the release, weather and at least one limit to see the footprint.</p>
-          )}
+          {resultsView}
         </section>
-        <DeferredLogSection
-          scenario={evaluation.stale ? null : (last?.scenario ?? null)}
-          result={evaluation.stale ? null : (last?.output ?? null)}
-          onReopen={loadScenario}
-          positionFix={positionFix}
-        />
+        {logView}
       </main>
     </div>
   );
