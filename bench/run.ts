@@ -7,7 +7,7 @@
  */
 import { execSync } from "node:child_process";
 import { existsSync, readFileSync, statSync, writeFileSync } from "node:fs";
-import { cpus } from "node:os";
+import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
 import { type BrowserResults, browserBench, chromiumVersion } from "./browser.ts";
 import { bundleReport, DIST, FIRST_SCREEN_JS_GZIP_BUDGET, REPO } from "./bundle.ts";
@@ -30,7 +30,7 @@ function machine() {
     node: process.version,
     chromium: chromiumVersion(),
     commit,
-    note: "shared machine: other sessions were running; figures are indicative",
+    note: `load average ${(loadavg()[0] ?? 0).toFixed(2)} on ${nproc} cores at the start; figures are indicative, compare runs on one machine only`,
   };
 }
 
