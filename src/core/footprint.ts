@@ -14,7 +14,7 @@ export const SCAN_MIN_M = 1;
 export const SCAN_MAX_M = 100_000;
 const PER_DECADE = 40;
 /** θ-nodes for the half-width profile (even; Simpson's rule). */
-const PROFILE_INTERVALS = 256;
+const PROFILE_INTERVALS = 128;
 
 export interface BandSolution {
   /** Limit C* (g/m³). */
