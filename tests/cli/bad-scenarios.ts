@@ -4,7 +4,7 @@
  *
  * Source of every rule: issue 2 ("The command-line estimator": fields, units, what is
  * optional) and model.md ("Inputs": defaults), with the ranges written in the JSDoc table of
- * src/core/scenario.ts. Each case breaks exactly one rule of an otherwise valid scenario, so it
+ * src/core/scenario/fields.ts. Each case breaks exactly one rule of an otherwise valid scenario, so it
  * must produce exactly one problem: its field, the value found, and a message saying what is
  * allowed.
  */

@@ -248,7 +248,7 @@ describe("estimate(): bad input", () => {
     const problems = (err as ScenarioError).problems;
     const p = problems.find((q) => q.field === "receptor_height_m");
     expect(p?.value).toBe(900);
-    expect(p?.message).toMatch(/100/); // allowed [0, 100] m (scenario.ts table)
+    expect(p?.message).toMatch(/100/); // allowed [0, 100] m (scenario/fields.ts table)
   });
 
   it("rejects a receptor above the mixing lid (the model would give nothing there)", () => {

@@ -2,7 +2,7 @@
  * parseScenario: the scenario boundary.
  *
  * Rules come from issue 2 ("The command-line estimator": field names, units, which fields are
- * optional) and the ranges in the JSDoc table of src/core/scenario.ts; defaults from model.md
+ * optional) and the ranges in the JSDoc table of src/core/scenario/fields.ts; defaults from model.md
  * ("Inputs" table) and issue 2 (points: averaging 600 s). The bad-input cases live in
  * tests/cli/bad-scenarios.ts and are shared with the command-line test.
  */

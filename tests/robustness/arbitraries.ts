@@ -1,7 +1,7 @@
 /**
  * fast-check generators for Driftmark scenarios, and the checks every estimate must pass.
  *
- * The input space is the one written in the JSDoc table of src/core/scenario.ts (issue 2's
+ * The input space is the one written in the JSDoc table of src/core/scenario/fields.ts (issue 2's
  * contract): every generated "valid" scenario stays inside those ranges, including the
  * cross-field rules (receptor and points below the mixing height, hot gas above the air
  * temperature, ppm limits need a molecular weight, sky "sun" needs a time and a source).

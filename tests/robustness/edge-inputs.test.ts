@@ -1,6 +1,6 @@
 /**
  * Edge inputs by name (issue 5, "Robustness"). Each test states what model.md or the scenario
- * contract (JSDoc table of src/core/scenario.ts) says should happen, and checks it, on top of
+ * contract (JSDoc table of src/core/scenario/fields.ts) says should happen, and checks it, on top of
  * the general soundness checks of arbitraries.ts (finite figures, model.md's warnings).
  * All scenarios are invented.
  */

@@ -1,7 +1,7 @@
 /**
  * Property: an invalid scenario is rejected with a ScenarioError whose problems name the field
  * that was broken, say what is allowed, and never show NaN (issue 5, "Robustness"; the ranges
- * are the JSDoc table of src/core/scenario.ts). Anything at all (random JSON) either gives a
+ * are the JSDoc table of src/core/scenario/fields.ts). Anything at all (random JSON) either gives a
  * sound estimate or a ScenarioError: never another exception.
  */
 import fc from "fast-check";
@@ -31,7 +31,7 @@ function expectReadable(p: ScenarioProblem): void {
   expect(p.message, `message of ${p.field}`).not.toMatch(/NaN|undefined|\[object/);
 }
 
-/** A numeric field of the contract, where it lives, and its range from scenario.ts. */
+/** A numeric field of the contract, where it lives, and its range from scenario/fields.ts. */
 interface NumericField {
   path: (s: Scenario) => string[] | null;
   range: { min: number; max: number; minOpen: boolean };

@@ -1,0 +1,60 @@
+/** Reads the scenario's top-level options: curves, receptor, swing, near zone, weight, source. */
+
+import type { ParsedScenario, SigmaScheme } from "../types.ts";
+import { DEFAULTS, KEYS, RANGES, SCHEMES } from "./fields.ts";
+import type { Maybe, Obj, Reader } from "./read.ts";
+
+export type OptionsPart = Maybe<
+  Pick<ParsedScenario, "scheme" | "receptorHeight" | "windSwingDeg" | "nearZone">
+>;
+
+/** `sigma_scheme`, `receptor_height_m` (m), `wind_swing_deg` (degrees), `near_zone_m` (m). */
+export function readOptions(rd: Reader, raw: Obj): OptionsPart {
+  let scheme: SigmaScheme | undefined = DEFAULTS.sigma_scheme;
+  if (raw.sigma_scheme !== undefined) scheme = rd.choice(raw, "sigma_scheme", "", SCHEMES, false);
+  let receptorHeight: number | undefined = DEFAULTS.receptor_height_m;
+  if (raw.receptor_height_m !== undefined) {
+    receptorHeight = rd.number(raw, "receptor_height_m", "", RANGES.receptor_height_m, false);
+  }
+  let windSwingDeg: number | undefined = DEFAULTS.wind_swing_deg;
+  if (raw.wind_swing_deg !== undefined) {
+    windSwingDeg = rd.number(raw, "wind_swing_deg", "", RANGES.wind_swing_deg, false);
+  }
+  let nearZone: number | undefined = DEFAULTS.near_zone_m;
+  if (raw.near_zone_m !== undefined) {
+    nearZone = rd.number(raw, "near_zone_m", "", RANGES.near_zone_m, false);
+  }
+  return { scheme, receptorHeight, windSwingDeg, nearZone };
+}
+
+/**
+ * `molecular_weight_g_mol` (g/mol): required when a limit is in ppm (`firstPpm` is the index
+ * of the first such limit, or -1). Null when absent and not needed.
+ */
+export function readMolecularWeight(
+  rd: Reader,
+  raw: Obj,
+  firstPpm: number,
+): number | null | undefined {
+  const needMw = firstPpm >= 0;
+  const molecularWeight = rd.number(
+    raw,
+    "molecular_weight_g_mol",
+    "",
+    RANGES.molecular_weight_g_mol,
+    needMw,
+    needMw ? ` when a limit is in ppm (limits[${firstPpm}] is)` : "",
+  );
+  if (molecularWeight !== undefined) return molecularWeight;
+  return raw.molecular_weight_g_mol === undefined ? null : undefined;
+}
+
+/** `source`: latitude and longitude (degrees); null when absent. */
+export function readSource(rd: Reader, raw: Obj): ParsedScenario["source"] | undefined {
+  const src = rd.object(raw, "source", "", false, 'e.g. {"lat": 47.0, "lon": 8.0}');
+  if (!src) return raw.source === undefined ? null : undefined;
+  rd.unknownKeys(src, "source", KEYS.source);
+  const lat = rd.number(src, "lat", "source", RANGES.lat, true);
+  const lon = rd.number(src, "lon", "source", RANGES.lon, true);
+  return lat !== undefined && lon !== undefined ? { lat, lon } : undefined;
+}
