@@ -15,8 +15,10 @@ import {
   DB_NAME,
   DB_VERSION,
   type DriftmarkDB,
+  LIMIT_SETS_STORE,
   type LogEntry,
   loggedResults,
+  NAME_INDEX,
   type Place,
   STORE,
   TIME_INDEX,
@@ -86,6 +88,9 @@ export async function openLogDB(name = DB_NAME): Promise<DB> {
             }
           })();
         }
+        if (oldVersion < 3) {
+          db.createObjectStore(LIMIT_SETS_STORE, { keyPath: "id" }).createIndex(NAME_INDEX, "name");
+        }
       },
       blocking() {
         // A newer version of the app wants to upgrade: let it (this tab reopens on next use).
@@ -100,6 +105,17 @@ export async function openLogDB(name = DB_NAME): Promise<DB> {
 
 const logDbCache = new Map<string, Promise<DB>>();
 
+/** The database connection, opened once per name and shared by the log and the limit sets. */
+export function sharedDB(name = DB_NAME): Promise<DB> {
+  let p = logDbCache.get(name);
+  if (!p) {
+    p = openLogDB(name);
+    logDbCache.set(name, p);
+    p.catch(() => logDbCache.delete(name));
+  }
+  return p;
+}
+
 /** The append-only log. Create with `LogStore.open()`. */
 export class LogStore {
   private constructor(
@@ -108,13 +124,7 @@ export class LogStore {
   ) {}
 
   static async open(name = DB_NAME): Promise<LogStore> {
-    let p = logDbCache.get(name);
-    if (!p) {
-      p = openLogDB(name);
-      logDbCache.set(name, p);
-      p.catch(() => logDbCache.delete(name));
-    }
-    return new LogStore(await p, name);
+    return new LogStore(await sharedDB(name), name);
   }
 
   /** Closes the connection (tests; the app keeps it open). */

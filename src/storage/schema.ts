@@ -3,16 +3,21 @@
  *
  * Version history (migrations live only in `upgrade`, see log.ts):
  * - v1 (first layout): store `estimates`, key path `id`, no index; entries had no `note`.
- * - v2 (current): index `by-time` on [time_utc, id] (newest-first paging, stable for equal times);
+ * - v2: index `by-time` on [time_utc, id] (newest-first paging, stable for equal times);
  *   every entry has a `note` ("" when none was given; v1 entries get "").
+ * - v3 (current): new store `limit-sets` (key path `id`, index `by-name` on `name`); the log's
+ *   entries are untouched.
  */
 import type { DBSchema } from "idb";
 import type { EstimateOutput, Scenario } from "../core/types.ts";
+import type { LimitSet } from "./limit-sets.ts";
 
 export const DB_NAME = "driftmark";
-export const DB_VERSION = 2;
+export const DB_VERSION = 3;
 export const STORE = "estimates";
 export const TIME_INDEX = "by-time";
+export const LIMIT_SETS_STORE = "limit-sets";
+export const NAME_INDEX = "by-name";
 
 /** Where the estimate was made, when known. */
 export interface Place {
@@ -56,6 +61,11 @@ export interface DriftmarkDB extends DBSchema {
     key: string;
     value: LogEntry;
     indexes: { "by-time": [string, string] };
+  };
+  "limit-sets": {
+    key: string;
+    value: LimitSet;
+    indexes: { "by-name": string };
   };
 }
 

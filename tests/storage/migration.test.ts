@@ -1,7 +1,16 @@
 import "fake-indexeddb/auto";
 import { describe, expect, it } from "vitest";
+import { LimitSetStore } from "../../src/storage/limit-set-store.ts";
 import { LogStore } from "../../src/storage/log.ts";
-import { DB_VERSION, type LogEntryV1, STORE, TIME_INDEX } from "../../src/storage/schema.ts";
+import {
+  DB_VERSION,
+  LIMIT_SETS_STORE,
+  type LogEntry,
+  type LogEntryV1,
+  NAME_INDEX,
+  STORE,
+  TIME_INDEX,
+} from "../../src/storage/schema.ts";
 import { dbName, entryAt } from "./fixtures.ts";
 
 /** Creates a schema-v1 database by hand (raw IndexedDB API), as the first layout wrote it. */
@@ -62,4 +71,68 @@ describe("schema migration", () => {
       };
     });
   });
+
+  it("opens version-2 data with the current code: log entries untouched, limit sets store added", async () => {
+    const name = dbName();
+    const a = entryAt(Date.UTC(2024, 0, 1, 8, 0, 0), "first");
+    const b = entryAt(Date.UTC(2024, 0, 2, 9, 0, 0), "second");
+    await createV2(name, [a, b]);
+
+    const sets = await LimitSetStore.open(name);
+    expect(await sets.count()).toBe(0);
+    const s = await LogStore.open(name);
+    try {
+      expect(await s.count()).toBe(2);
+      expect(await s.get(a.id)).toEqual(a);
+      expect(await s.get(b.id)).toEqual(b);
+      await sets.add({
+        name: "Gas (invented)",
+        molecular_weight_g_mol: null,
+        source_note: "",
+        limits: [{ label: "T", value: 1, unit: "mg/m3", averaging_min: 60 }],
+      });
+      expect(await sets.count()).toBe(1);
+    } finally {
+      s.close();
+    }
+    await new Promise<void>((resolve, reject) => {
+      const req = indexedDB.open(name);
+      req.onerror = () => reject(req.error);
+      req.onsuccess = () => {
+        const db = req.result;
+        expect(db.version).toBe(DB_VERSION);
+        expect(DB_VERSION).toBe(3);
+        expect(Array.from(db.objectStoreNames).sort()).toEqual([STORE, LIMIT_SETS_STORE].sort());
+        const idx = Array.from(
+          db.transaction(LIMIT_SETS_STORE).objectStore(LIMIT_SETS_STORE).indexNames,
+        );
+        expect(idx).toEqual([NAME_INDEX]);
+        db.close();
+        resolve();
+      };
+    });
+  });
 });
+
+/** Creates a schema-v2 database by hand (raw IndexedDB API), as version 2 laid it out. */
+function createV2(name: string, entries: LogEntry[]): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const req = indexedDB.open(name, 2);
+    req.onupgradeneeded = () => {
+      req.result
+        .createObjectStore(STORE, { keyPath: "id" })
+        .createIndex(TIME_INDEX, ["time_utc", "id"]);
+    };
+    req.onerror = () => reject(req.error);
+    req.onsuccess = () => {
+      const db = req.result;
+      const tx = db.transaction(STORE, "readwrite");
+      for (const e of entries) tx.objectStore(STORE).put(e);
+      tx.oncomplete = () => {
+        db.close();
+        resolve();
+      };
+      tx.onerror = () => reject(tx.error);
+    };
+  });
+}
