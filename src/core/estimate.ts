@@ -220,6 +220,7 @@ export function estimateLocal(scenario: Scenario | unknown): EstimateOutput {
     bands,
     points,
     warnings,
+    ...(parsed.limitSet ? { limit_set: { ...parsed.limitSet } } : {}),
     footprint,
   };
   return out;

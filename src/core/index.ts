@@ -58,6 +58,7 @@ export function estimate(
       modelVersion: MODEL_VERSION,
       caution: CAUTION,
       timestamp: null,
+      limitSet: out.limit_set ?? null,
     });
   }
   return out;

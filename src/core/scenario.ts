@@ -18,7 +18,7 @@
 import { ScenarioError } from "./errors.ts";
 import { KEYS } from "./scenario/fields.ts";
 import { checkAcross, readLimits, readPoints } from "./scenario/lists.ts";
-import { readMolecularWeight, readOptions, readSource } from "./scenario/options.ts";
+import { readLimitSet, readMolecularWeight, readOptions, readSource } from "./scenario/options.ts";
 import { isObject, type Maybe, Reader } from "./scenario/read.ts";
 import { readRelease } from "./scenario/release.ts";
 import { readWeather } from "./scenario/weather.ts";
@@ -29,6 +29,8 @@ export {
   MAX_LABEL_LENGTH,
   MAX_LIMITS,
   MAX_POINTS,
+  MAX_SET_NAME_LENGTH,
+  MAX_SOURCE_NOTE_LENGTH,
   RANGES,
   SKY_VALUES,
 } from "./scenario/fields.ts";
@@ -87,6 +89,7 @@ export function parseScenario(raw: unknown): ParsedScenario {
   const molecularWeight = readMolecularWeight(rd, raw, firstPpm);
   const source = readSource(rd, raw);
   const points = readPoints(rd, raw, options.receptorHeight);
+  const limitSet = readLimitSet(rd, raw);
   checkAcross(rd, raw, limits, mixingHeight, options.receptorHeight);
 
   if (rd.problems.length > 0) throw new ScenarioError(rd.problems);
@@ -98,5 +101,6 @@ export function parseScenario(raw: unknown): ParsedScenario {
     limits,
     source,
     points,
+    limitSet,
   });
 }

@@ -98,6 +98,14 @@ export interface Scenario {
   near_zone_m?: number;
   source?: { lat: number; lon: number };
   points?: ScenarioPoint[];
+  /** The limit set (glossary) the limits were filled from, recorded with the estimate. */
+  limit_set?: ScenarioLimitSet;
+}
+
+/** Which limit set was used: its name and where its values come from (free text). */
+export interface ScenarioLimitSet {
+  name: string;
+  source_note: string;
 }
 
 export interface Warning {
@@ -173,6 +181,8 @@ export interface EstimateOutput {
   bands: BandOutput[];
   points: PointOutput[];
   warnings: Warning[];
+  /** The scenario's `limit_set`, when given: which set the limits came from. */
+  limit_set?: ScenarioLimitSet;
   /** Local footprint geometry (x downwind, y left, metres) for drawing without a place. */
   footprint: LocalFootprint;
   /** Present when `source` is given: RFC 7946 FeatureCollection. */
@@ -273,6 +283,8 @@ export interface ParsedScenario {
   nearZone: number;
   source: { lat: number; lon: number } | null;
   points: { x: number; y: number; z: number; averaging: number }[];
+  /** The limit set the limits came from; null when not given. */
+  limitSet: ScenarioLimitSet | null;
 }
 
 /** One problem with a scenario: the field (dotted path), the value found, and what is allowed. */

@@ -45,6 +45,7 @@ export function footprintFile(
     modelVersion: result.model_version,
     caution: CAUTION,
     timestamp: timeLocal,
+    limitSet: result.limit_set ?? scenario.limit_set ?? null,
   });
   return {
     geojson,

@@ -236,6 +236,8 @@ export interface FootprintGeoJSONArgs {
   caution: string;
   /** ISO 8601 time stamp of the estimate, or null when not known (the core has no clock). */
   timestamp: string | null;
+  /** The limit set the limits came from (name and source note), when one was used. */
+  limitSet?: { name: string; source_note: string } | null;
 }
 
 /** The FeatureCollection with Driftmark's foreign members (RFC 7946 §6.1). */
@@ -243,6 +245,8 @@ export interface FootprintCollection extends FeatureCollection {
   caution: string;
   model_version: string;
   timestamp: string | null;
+  /** Present when the limits came from a limit set. */
+  limit_set?: { name: string; source_note: string };
 }
 
 export type FeatureKind = "source" | "band" | "near-zone" | "centreline";
@@ -269,7 +273,10 @@ function localRingToUnwrapped(
 export function footprintGeoJSON(args: FootprintGeoJSONArgs): FootprintCollection {
   const { footprint, bands, source, inputs, modelVersion, caution, timestamp } = args;
   const heading = footprint.heading_deg;
-  const common = { inputs, timestamp, model_version: modelVersion, caution };
+  const limitSet = args.limitSet
+    ? { limit_set: { name: args.limitSet.name, source_note: args.limitSet.source_note } }
+    : {};
+  const common = { inputs, timestamp, model_version: modelVersion, caution, ...limitSet };
   const features: Feature<Geometry>[] = [];
 
   const src: Feature<Point> = {
@@ -379,5 +386,12 @@ export function footprintGeoJSON(args: FootprintGeoJSONArgs): FootprintCollectio
     });
   }
 
-  return { type: "FeatureCollection", caution, model_version: modelVersion, timestamp, features };
+  return {
+    type: "FeatureCollection",
+    caution,
+    model_version: modelVersion,
+    timestamp,
+    ...limitSet,
+    features,
+  };
 }

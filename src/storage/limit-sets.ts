@@ -14,6 +14,12 @@
  * set that imports can always be estimated.
  */
 import { CAUTION } from "../core/caution.ts";
+import {
+  MAX_LABEL_LENGTH,
+  MAX_LIMITS,
+  MAX_SET_NAME_LENGTH,
+  MAX_SOURCE_NOTE_LENGTH,
+} from "../core/scenario/fields.ts";
 import type { LimitUnit } from "../core/types.ts";
 import { CsvSyntaxError, parseCsv, writeCsv } from "./csv.ts";
 import { readJsonText } from "./json-text.ts";
@@ -65,14 +71,14 @@ export const LIMIT_SETS_VERSION = 1;
 export const MAX_FILE_BYTES = 5 * 1024 * 1024;
 export const MAX_SETS = 2000;
 /** Same bounds as the estimate's validation (src/core/scenario.ts). */
-export const MAX_LIMITS_PER_SET = 100;
-export const MAX_LABEL = 80;
+export const MAX_LIMITS_PER_SET = MAX_LIMITS;
+export const MAX_LABEL = MAX_LABEL_LENGTH;
 export const MAX_VALUE = 1e9;
 export const MAX_MW = 1000;
 export const MIN_AVG_MIN = 1;
 export const MAX_AVG_MIN = 1440;
-export const MAX_NAME = 120;
-export const MAX_NOTE = 1000;
+export const MAX_NAME = MAX_SET_NAME_LENGTH;
+export const MAX_NOTE = MAX_SOURCE_NOTE_LENGTH;
 /** At most this many problems are listed; the count says how many more there were. */
 const MAX_LISTED = 20;
 

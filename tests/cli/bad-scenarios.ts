@@ -170,6 +170,12 @@ export const BAD_CASES: BadCase[] = [
   { rule: "point height above 1000 m", edit: (s) => { s.points[0].z_m = 1001; }, field: "points[0].z_m", value: 1001, allowed: "from 0 to 1000 m" },
   { rule: "point averaging below 1 s", edit: (s) => { s.points[0].averaging_s = 0; }, field: "points[0].averaging_s", value: 0, allowed: "from 1 to 86400 s" },
   { rule: "point averaging above a day", edit: (s) => { s.points[0].averaging_s = 86401; }, field: "points[0].averaging_s", value: 86401, allowed: "from 1 to 86400 s", cli: true },
+  // --- the limit set used ----------------------------------------------------
+  { rule: "limit set not an object", edit: (s) => { s.limit_set = "Gas (invented)"; }, field: "limit_set", value: "Gas (invented)", allowed: "must be an object" },
+  { rule: "limit set without a name", edit: (s) => { s.limit_set = { source_note: "" }; }, field: "limit_set.name", value: undefined, allowed: "non-empty text of at most 120 characters", cli: true },
+  { rule: "limit set name blank", edit: (s) => { s.limit_set = { name: " ", source_note: "" }; }, field: "limit_set.name", value: " ", allowed: "non-empty text" },
+  { rule: "limit set source note not text", edit: (s) => { s.limit_set = { name: "G", source_note: 3 }; }, field: "limit_set.source_note", value: 3, allowed: "text of at most 1000 characters" },
+  { rule: "limit set with an unknown key", edit: (s) => { s.limit_set = { name: "G", source_note: "", mw: 3 }; }, field: "limit_set.mw", value: 3, allowed: "allowed: name, source_note" },
 ];
 
 /** Applies a case to a fresh base scenario. */

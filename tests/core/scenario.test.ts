@@ -234,3 +234,15 @@ describe("parseIsoTime reads ISO 8601 date-times that carry a zone", () => {
     expect(parseIsoTime(text)).toBeNull();
   });
 });
+
+describe("parseScenario keeps the limit set used", () => {
+  test("name and source note, or null when absent", () => {
+    const s = baseScenario() as Record<string, unknown>;
+    expect(parseScenario(s).limitSet).toBeNull();
+    s.limit_set = { name: "Gas Q (invented)", source_note: "Invented list, rev. 2" };
+    expect(parseScenario(s).limitSet).toEqual({
+      name: "Gas Q (invented)",
+      source_note: "Invented list, rev. 2",
+    });
+  });
+});

@@ -253,3 +253,20 @@ describe("footprintGeoJSON", () => {
     }
   });
 });
+
+describe("the limit set used travels with the estimate and its GeoJSON", () => {
+  it("is in the output, on the collection and on every feature; absent when none was used", async () => {
+    const { estimate } = await import("../../src/core/index.ts");
+    const demo = (await import("../../examples/demo.json", { with: { type: "json" } })).default;
+    const used = { name: "Substance X (invented demo)", source_note: "Invented list, rev. 1" };
+    const out = estimate({ ...demo, limit_set: used });
+    expect(out.limit_set).toEqual(used);
+    const fc = out.geojson as unknown as { limit_set?: unknown; features: Feature[] };
+    expect(fc.limit_set).toEqual(used);
+    for (const f of fc.features) expect(f.properties?.limit_set).toEqual(used);
+    const plain = estimate(demo);
+    expect(plain.limit_set).toBeUndefined();
+    expect((plain.geojson as unknown as { limit_set?: unknown }).limit_set).toBeUndefined();
+    expect(plain.geojson?.features[0]?.properties?.limit_set).toBeUndefined();
+  });
+});

@@ -40,6 +40,8 @@
  * | points[i].x_m, points[i].y_m | [-1e6, 1e6] m | required |
  * | points[i].z_m | [0, 1000] m | receptor height |
  * | points[i].averaging_s | [1, 86400] s | 600 |
+ * | limit_set.name | non-empty text, at most 120 characters | whole `limit_set` absent = none |
+ * | limit_set.source_note | text, at most 1000 characters | required with `limit_set` ("" allowed) |
  */
 
 import { TABLE_SKIES } from "../stability.ts";
@@ -96,6 +98,9 @@ export const DEFAULTS = {
 export const MAX_LIMITS = 100;
 export const MAX_POINTS = 1000;
 export const MAX_LABEL_LENGTH = 80;
+/** Longest limit set name and source note (limit_set). */
+export const MAX_SET_NAME_LENGTH = 120;
+export const MAX_SOURCE_NOTE_LENGTH = 1000;
 
 /** The skies a scenario may give: the table's, or "sun" (strength from the sun's elevation). */
 export const SKY_VALUES: readonly Sky[] = [...TABLE_SKIES, "sun"];
@@ -116,6 +121,7 @@ export const KEYS = {
     "near_zone_m",
     "source",
     "points",
+    "limit_set",
   ],
   continuous: ["kind", "rate_g_s", "duration_s", "height_m", "heavy_or_cold", "hot"],
   instantaneous: ["kind", "mass_g", "height_m", "heavy_or_cold", "hot"],
@@ -134,4 +140,5 @@ export const KEYS = {
   limit: ["label", "value", "unit", "averaging_s"],
   point: ["x_m", "y_m", "z_m", "averaging_s"],
   source: ["lat", "lon"],
+  limitSet: ["name", "source_note"],
 } as const;

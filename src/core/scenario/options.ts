@@ -1,7 +1,14 @@
 /** Reads the scenario's top-level options: curves, receptor, swing, near zone, weight, source. */
 
 import type { ParsedScenario, SigmaScheme } from "../types.ts";
-import { DEFAULTS, KEYS, RANGES, SCHEMES } from "./fields.ts";
+import {
+  DEFAULTS,
+  KEYS,
+  MAX_SET_NAME_LENGTH,
+  MAX_SOURCE_NOTE_LENGTH,
+  RANGES,
+  SCHEMES,
+} from "./fields.ts";
 import type { Maybe, Obj, Reader } from "./read.ts";
 
 export type OptionsPart = Maybe<
@@ -57,4 +64,28 @@ export function readSource(rd: Reader, raw: Obj): ParsedScenario["source"] | und
   const lat = rd.number(src, "lat", "source", RANGES.lat, true);
   const lon = rd.number(src, "lon", "source", RANGES.lon, true);
   return lat !== undefined && lon !== undefined ? { lat, lon } : undefined;
+}
+
+/** `limit_set`: the name and source note of the limit set used; null when absent. */
+export function readLimitSet(rd: Reader, raw: Obj): ParsedScenario["limitSet"] | undefined {
+  const set = rd.object(raw, "limit_set", "", false, '{"name": …, "source_note": …}');
+  if (!set) return raw.limit_set === undefined ? null : undefined;
+  rd.unknownKeys(set, "limit_set", KEYS.limitSet);
+  const nameText = `must be a non-empty text of at most ${MAX_SET_NAME_LENGTH} characters`;
+  const name = set.name;
+  const nameOk =
+    typeof name === "string" && name.trim() !== "" && name.length <= MAX_SET_NAME_LENGTH;
+  if (!nameOk)
+    rd.add("limit_set.name", name, name === undefined ? `is required; ${nameText}` : nameText);
+  const note = set.source_note;
+  const noteText = `must be a text of at most ${MAX_SOURCE_NOTE_LENGTH} characters ("" when none)`;
+  const noteOk = typeof note === "string" && note.length <= MAX_SOURCE_NOTE_LENGTH;
+  if (!noteOk) {
+    rd.add(
+      "limit_set.source_note",
+      note,
+      note === undefined ? `is required; ${noteText}` : noteText,
+    );
+  }
+  return nameOk && noteOk ? { name: name as string, source_note: note as string } : undefined;
 }
