@@ -11,7 +11,12 @@ import { ReleaseSection } from "./components/ReleaseSection.tsx";
 import { Results } from "./components/Results.tsx";
 import { Toolbar } from "./components/Toolbar.tsx";
 import { WeatherSection } from "./components/WeatherSection.tsx";
-import { DeferredAboutPage, DeferredCentrelineChart, DeferredLogSection } from "./deferred.tsx";
+import {
+  DeferredAboutPage,
+  DeferredCentrelineChart,
+  DeferredLimitSetPanel,
+  DeferredLogSection,
+} from "./deferred.tsx";
 import { DEMO_SCENARIO } from "./demo.ts";
 import { type Evaluation, evaluate, readForm, settle } from "./evaluate.ts";
 import { groupProblems } from "./form.ts";
@@ -222,7 +227,12 @@ export function App({ makeEstimator }: AppProps = {}) {
             errors={errors}
             suggestion={suggestion}
           />
-          <LimitsSection form={screen.form} dispatch={dispatch} errors={errors} />
+          <LimitsSection
+            form={screen.form}
+            dispatch={dispatch}
+            errors={errors}
+            sets={<DeferredLimitSetPanel form={screen.form} dispatch={dispatch} />}
+          />
           <PlaceSection
             form={screen.form}
             dispatch={dispatch}

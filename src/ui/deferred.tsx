@@ -7,6 +7,7 @@
 import type { ComponentType } from "preact";
 import { useEffect, useState } from "preact/hooks";
 import type { ProfileChartProps } from "./components/ProfileChart.tsx";
+import type { LimitSetPanelProps } from "./limitsets/LimitSetPanel.tsx";
 import type { LogSectionProps } from "./log/LogSection.tsx";
 
 /** Load a component once; later calls share the same promise. */
@@ -23,6 +24,9 @@ export const loadLogSection = once<LogSectionProps>(() =>
 );
 export const loadCentrelineChart = once<ProfileChartProps>(() =>
   import("./components/ProfileChart.tsx").then((m) => m.ProfileChart),
+);
+export const loadLimitSetPanel = once<LimitSetPanelProps>(() =>
+  import("./limitsets/LimitSetPanel.tsx").then((m) => m.LimitSetPanel),
 );
 export const loadAboutPage = once<{ onBack: () => void }>(() =>
   import("./components/AboutPage.tsx").then((m) => m.AboutPage),
@@ -73,5 +77,11 @@ export function DeferredAboutPage(props: { onBack: () => void }) {
 /** The centreline chart, loaded once the first estimate has been drawn. */
 export function DeferredCentrelineChart(props: ProfileChartProps) {
   const C = useDeferred(loadCentrelineChart, true);
+  return C ? <C {...props} /> : null;
+}
+
+/** The "Limit set" field and the saved sets, loaded once the first estimate has been drawn. */
+export function DeferredLimitSetPanel(props: LimitSetPanelProps) {
+  const C = useDeferred(loadLimitSetPanel, true);
   return C ? <C {...props} /> : null;
 }

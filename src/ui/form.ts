@@ -86,6 +86,8 @@ export interface FormState {
   mixingHeightUnit: LengthUnit;
   molecularWeight: string;
   limits: LimitForm[];
+  /** The limit set the limits were filled from; cleared when a limit or the weight is edited. */
+  limitSet?: { name: string; source_note: string } | null;
   lat: string;
   lon: string;
 }
@@ -430,6 +432,7 @@ function build(
     ...(zr !== undefined ? { receptor_height_m: zr } : {}),
     ...(form.scheme !== "briggs" ? { sigma_scheme: form.scheme } : {}),
     ...(latV !== undefined && lonV !== undefined ? { source: { lat: latV, lon: lonV } } : {}),
+    ...(form.limitSet ? { limit_set: form.limitSet } : {}),
   };
   return { scenario, problems };
 }
@@ -539,6 +542,7 @@ export function formFromScenario(s: Scenario): FormState {
     unit: l.unit,
     averagingMin: tidy(timeFromS(l.averaging_s, "min")),
   }));
+  f.limitSet = s.limit_set ?? null;
   f.lat = s.source ? String(roundSig(s.source.lat, 9)) : "";
   f.lon = s.source ? String(roundSig(s.source.lon, 9)) : "";
   return f;

@@ -40,8 +40,8 @@
  * | points[i].x_m, points[i].y_m | [-1e6, 1e6] m | required |
  * | points[i].z_m | [0, 1000] m | receptor height |
  * | points[i].averaging_s | [1, 86400] s | 600 |
- * | limit_set.name | non-empty text, at most 120 characters | whole `limit_set` absent = none |
- * | limit_set.source_note | text, at most 1000 characters | required with `limit_set` ("" allowed) |
+ * | limit_set.name | text of 1 to 120 characters (not blank) | whole `limit_set` absent = none |
+ * | limit_set.source_note | text of 0 to 1000 characters | required with `limit_set` |
  */
 
 import { TABLE_SKIES } from "../stability.ts";

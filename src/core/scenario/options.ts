@@ -66,26 +66,22 @@ export function readSource(rd: Reader, raw: Obj): ParsedScenario["source"] | und
   return lat !== undefined && lon !== undefined ? { lat, lon } : undefined;
 }
 
-/** `limit_set`: the name and source note of the limit set used; null when absent. */
+/** `limit_set`: the name (1–120 characters) and source note (0–1000) of the set used; null when absent. */
 export function readLimitSet(rd: Reader, raw: Obj): ParsedScenario["limitSet"] | undefined {
-  const set = rd.object(raw, "limit_set", "", false, '{"name": …, "source_note": …}');
+  const set = rd.object(raw, "limit_set", "", false, "name and source_note");
   if (!set) return raw.limit_set === undefined ? null : undefined;
   rd.unknownKeys(set, "limit_set", KEYS.limitSet);
-  const nameText = `must be a non-empty text of at most ${MAX_SET_NAME_LENGTH} characters`;
-  const name = set.name;
-  const nameOk =
-    typeof name === "string" && name.trim() !== "" && name.length <= MAX_SET_NAME_LENGTH;
-  if (!nameOk)
-    rd.add("limit_set.name", name, name === undefined ? `is required; ${nameText}` : nameText);
-  const note = set.source_note;
-  const noteText = `must be a text of at most ${MAX_SOURCE_NOTE_LENGTH} characters ("" when none)`;
-  const noteOk = typeof note === "string" && note.length <= MAX_SOURCE_NOTE_LENGTH;
-  if (!noteOk) {
-    rd.add(
-      "limit_set.source_note",
-      note,
-      note === undefined ? `is required; ${noteText}` : noteText,
-    );
+  let ok = true;
+  for (const [key, min, max] of [
+    ["name", 1, MAX_SET_NAME_LENGTH],
+    ["source_note", 0, MAX_SOURCE_NOTE_LENGTH],
+  ] as const) {
+    const v = set[key];
+    if (typeof v !== "string" || v.trim().length < min || v.length > max) {
+      const req = v === undefined ? "is required; " : "";
+      rd.add(`limit_set.${key}`, v, `${req}must be a text of ${min} to ${max} characters`);
+      ok = false;
+    }
   }
-  return nameOk && noteOk ? { name: name as string, source_note: note as string } : undefined;
+  return ok ? { name: set.name as string, source_note: set.source_note as string } : undefined;
 }

@@ -1,3 +1,4 @@
+import type { ComponentChildren } from "preact";
 import type { LimitUnit } from "../../core/types.ts";
 import { FIELD, LIMIT_TEMPLATES, limitFieldId } from "../form.ts";
 import { FieldError, type Option, TextField } from "./Field.tsx";
@@ -8,7 +9,12 @@ const UNIT_OPTIONS: Option<LimitUnit>[] = [
   { value: "mg/m3", label: "mg/m³" },
 ];
 
-export function LimitsSection({ form, dispatch, errors }: SectionProps) {
+export function LimitsSection({
+  form,
+  dispatch,
+  errors,
+  sets,
+}: SectionProps & { sets?: ComponentChildren }) {
   const set = setter(dispatch);
   const usesPpm = form.limits.some((l) => l.unit === "ppm");
   return (
@@ -18,6 +24,7 @@ export function LimitsSection({ form, dispatch, errors }: SectionProps) {
         Enter each limit from your agency's sources. Tier names fill the name and averaging time
         only, never a value.
       </p>
+      {sets}
       <FieldError id={FIELD.limits} messages={errors[FIELD.limits]} />
       {form.limits.map((limit, i) => {
         const n = i + 1;
