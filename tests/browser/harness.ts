@@ -87,3 +87,14 @@ export async function launchBrowser(opts?: {
     },
   };
 }
+
+/** Resolves once the page is controlled by the service worker (so an offline reload works). */
+export async function waitForController(page: Page): Promise<void> {
+  await page.evaluate(async () => {
+    const sw = navigator.serviceWorker;
+    await sw.ready;
+    if (!sw.controller) {
+      await new Promise((done) => sw.addEventListener("controllerchange", done, { once: true }));
+    }
+  });
+}

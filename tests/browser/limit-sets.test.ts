@@ -8,7 +8,7 @@ import { join } from "node:path";
 import AxeBuilder from "@axe-core/playwright";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, startApp } from "./harness.ts";
+import { launchBrowser, startApp, waitForController } from "./harness.ts";
 
 type App = Awaited<ReturnType<typeof startApp>>;
 let app: App;
@@ -35,20 +35,14 @@ const FILE = [
 
 async function importFile(page: Page, name: string, text: string): Promise<void> {
   await page.locator("summary", { hasText: "Manage limit sets" }).click();
+  await pickFile(page, name, text);
+}
+
+async function pickFile(page: Page, name: string, text: string): Promise<void> {
   await page.getByLabel("Limit sets file").setInputFiles({
     name,
     mimeType: "text/csv",
     buffer: Buffer.from(text, "utf8"),
-  });
-}
-
-async function waitForController(page: Page): Promise<void> {
-  await page.evaluate(async () => {
-    const sw = navigator.serviceWorker;
-    await sw.ready;
-    if (!sw.controller) {
-      await new Promise((done) => sw.addEventListener("controllerchange", done, { once: true }));
-    }
   });
 }
 
@@ -148,11 +142,7 @@ describe("limit sets in the browser", () => {
       await page.getByText("Imported 3 limit sets.").waitFor();
 
       const bad = `${FILE}\r\nGas Delta (invented),30,Tier 1,lots,ppm,60,x`;
-      await page.getByLabel("Limit sets file").setInputFiles({
-        name: "bad.csv",
-        mimeType: "text/csv",
-        buffer: Buffer.from(bad, "utf8"),
-      });
+      await pickFile(page, "bad.csv", bad);
       const problems = page.getByTestId("limit-sets-problems");
       await problems.waitFor();
       expect(await problems.textContent()).toContain(
@@ -162,21 +152,13 @@ describe("limit sets in the browser", () => {
         "Manage limit sets (3 saved)",
       );
 
-      await page.getByLabel("Limit sets file").setInputFiles({
-        name: "again.csv",
-        mimeType: "text/csv",
-        buffer: Buffer.from(FILE, "utf8"),
-      });
+      await pickFile(page, "again.csv", FILE);
       await page.getByRole("button", { name: "Replace" }).click();
       await page.getByText("Imported 3 limit sets (replaced 3).").waitFor();
       expect(await page.locator("summary", { hasText: "Manage limit sets" }).textContent()).toBe(
         "Manage limit sets (3 saved)",
       );
-      await page.getByLabel("Limit sets file").setInputFiles({
-        name: "again.csv",
-        mimeType: "text/csv",
-        buffer: Buffer.from(FILE, "utf8"),
-      });
+      await pickFile(page, "again.csv", FILE);
       await page.getByRole("button", { name: "Keep both" }).click();
       await page.getByText("Imported 3 limit sets.").waitFor();
       expect(await page.locator("summary", { hasText: "Manage limit sets" }).textContent()).toBe(

@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startServer } from "../../scripts/serve.mjs";
 import { CAUTION } from "../../src/core/caution.ts";
 import { expectValidFootprintFile } from "../geo/validate.ts";
-import { launchBrowser, startApp } from "./harness.ts";
+import { launchBrowser, startApp, waitForController } from "./harness.ts";
 
 type App = Awaited<ReturnType<typeof startApp>>;
 let app: App;
@@ -29,16 +29,6 @@ afterAll(async () => {
   await app?.close();
   for (const d of profiles) rmSync(d, { recursive: true, force: true });
 });
-
-async function waitForController(page: Page): Promise<void> {
-  await page.evaluate(async () => {
-    const sw = navigator.serviceWorker;
-    await sw.ready;
-    if (!sw.controller) {
-      await new Promise((done) => sw.addEventListener("controllerchange", done, { once: true }));
-    }
-  });
-}
 
 /** The entry count the log view shows ("3 entries." → 3). */
 async function shownCount(page: Page): Promise<number> {

@@ -62,7 +62,7 @@ export const BAD_CASES: BadCase[] = [
 
   // --- release -----------------------------------------------------------------
   { rule: "release missing", edit: (s) => { delete s.release; }, field: "release", value: undefined, allowed: "is required", cli: true },
-  { rule: "release not an object", edit: (s) => { s.release = 500; }, field: "release", value: 500, allowed: "must be an object (name and source_note)" },
+  { rule: "release not an object", edit: (s) => { s.release = 500; }, field: "release", value: 500, allowed: "must be an object" },
   { rule: "unknown release kind", edit: (s) => { s.release.kind = "leak"; }, field: "release.kind", value: "leak", allowed: '"continuous", "instantaneous"', cli: true },
   { rule: "release kind of the wrong type", edit: (s) => { s.release.kind = 1; }, field: "release.kind", value: 1, allowed: '"continuous", "instantaneous"' },
   { rule: "rate missing", edit: (s) => { delete s.release.rate_g_s; }, field: "release.rate_g_s", value: undefined, allowed: "is required; must be a number greater than 0 and at most 1e10 g/s", cli: true },
@@ -82,7 +82,7 @@ export const BAD_CASES: BadCase[] = [
   { rule: "negative height", edit: (s) => { s.release.height_m = -1; }, field: "release.height_m", value: -1, allowed: "from 0 to 1000 m", cli: true },
   { rule: "height above 1000 m", edit: (s) => { s.release.height_m = 1001; }, field: "release.height_m", value: 1001, allowed: "from 0 to 1000 m" },
   { rule: "heavy_or_cold not a boolean", edit: (s) => { s.release.heavy_or_cold = "yes"; }, field: "release.heavy_or_cold", value: "yes", allowed: "true or false", cli: true },
-  { rule: "hot not an object", edit: (s) => { s.release.hot = true; }, field: "release.hot", value: true, allowed: "must be an object (name and source_note)" },
+  { rule: "hot not an object", edit: (s) => { s.release.hot = true; }, field: "release.hot", value: true, allowed: "must be an object" },
   { rule: "hot without a diameter", edit: (s) => { s.release.hot = { exit_speed_m_s: 10, gas_temperature_k: 500 }; }, field: "release.hot.diameter_m", value: undefined, allowed: "greater than 0 and at most 50 m", cli: true },
   { rule: "hot exit speed zero", edit: (s) => { s.release.hot = { exit_speed_m_s: 0, diameter_m: 1, gas_temperature_k: 500 }; }, field: "release.hot.exit_speed_m_s", value: 0, allowed: "greater than 0 and at most 300 m/s" },
   { rule: "hot exit speed above 300 m/s", edit: (s) => { s.release.hot = { exit_speed_m_s: 301, diameter_m: 1, gas_temperature_k: 500 }; }, field: "release.hot.exit_speed_m_s", value: 301, allowed: "at most 300 m/s" },
@@ -92,7 +92,7 @@ export const BAD_CASES: BadCase[] = [
 
   // --- weather -----------------------------------------------------------------
   { rule: "weather missing", edit: (s) => { delete s.weather; }, field: "weather", value: undefined, allowed: "is required", cli: true },
-  { rule: "weather not an object", edit: (s) => { s.weather = "windy"; }, field: "weather", value: "windy", allowed: "must be an object (name and source_note)" },
+  { rule: "weather not an object", edit: (s) => { s.weather = "windy"; }, field: "weather", value: "windy", allowed: "must be an object" },
   { rule: "wind speed missing", edit: (s) => { delete s.weather.wind_speed_m_s; }, field: "weather.wind_speed_m_s", value: undefined, allowed: "is required; must be a number from 0 to 75 m/s" },
   { rule: "negative wind speed", edit: (s) => { s.weather.wind_speed_m_s = -0.1; }, field: "weather.wind_speed_m_s", value: -0.1, allowed: "from 0 to 75 m/s", cli: true },
   { rule: "wind speed above 75 m/s", edit: (s) => { s.weather.wind_speed_m_s = 76; }, field: "weather.wind_speed_m_s", value: 76, allowed: "from 0 to 75 m/s" },
@@ -137,12 +137,12 @@ export const BAD_CASES: BadCase[] = [
   { rule: "limits missing", edit: (s) => { delete s.limits; delete s.molecular_weight_g_mol; }, field: "limits", value: undefined, allowed: "is required; must be a list of 0 to 100 limits", cli: true },
   { rule: "limits not a list", edit: (s) => { s.limits = { label: "A" }; }, field: "limits", value: { label: "A" }, allowed: "must be a list of 0 to 100 limits" },
   { rule: "more than 100 limits", edit: (s) => { s.limits = Array.from({ length: 101 }, (_, i) => ({ label: `L${i}`, value: 1, unit: "mg/m3", averaging_s: 600 })); }, field: "limits", value: "101 items", allowed: "0 to 100 limits", cli: true },
-  { rule: "a limit not an object", edit: (s) => { s.limits[1] = 27; }, field: "limits[1]", value: 27, allowed: "must be an object (name and source_note)" },
+  { rule: "a limit not an object", edit: (s) => { s.limits[1] = 27; }, field: "limits[1]", value: 27, allowed: "must be an object" },
   { rule: "limit label missing", edit: (s) => { delete s.limits[1].label; }, field: "limits[1].label", value: undefined, allowed: "non-empty text of at most 80 characters" },
   { rule: "limit label empty", edit: (s) => { s.limits[1].label = ""; }, field: "limits[1].label", value: "", allowed: "non-empty text", cli: true },
-  { rule: "limit label only spaces", edit: (s) => { s.limits[1].label = "   "; }, field: "limits[1].label", value: "   ", allowed: "must be a text of 1 to 120 characters" },
+  { rule: "limit label only spaces", edit: (s) => { s.limits[1].label = "   "; }, field: "limits[1].label", value: "   ", allowed: "non-empty text" },
   { rule: "limit label over 80 characters", edit: (s) => { s.limits[1].label = "x".repeat(81); }, field: "limits[1].label", value: "x".repeat(81), allowed: "at most 80 characters" },
-  { rule: "limit label a number", edit: (s) => { s.limits[1].label = 2; }, field: "limits[1].label", value: 2, allowed: "must be a text of 1 to 120 characters" },
+  { rule: "limit label a number", edit: (s) => { s.limits[1].label = 2; }, field: "limits[1].label", value: 2, allowed: "non-empty text" },
   { rule: "limit value zero", edit: (s) => { s.limits[1].value = 0; }, field: "limits[1].value", value: 0, allowed: "greater than 0 and at most 1e9", cli: true },
   { rule: "limit value above 1e9", edit: (s) => { s.limits[1].value = 2e9; }, field: "limits[1].value", value: 2e9, allowed: "at most 1e9" },
   { rule: "limit value as a string", edit: (s) => { s.limits[1].value = "40"; }, field: "limits[1].value", value: "40", allowed: "without quotes" },
@@ -162,7 +162,7 @@ export const BAD_CASES: BadCase[] = [
   // --- points ------------------------------------------------------------------
   { rule: "points not a list", edit: (s) => { s.points = { x_m: 1 }; }, field: "points", value: { x_m: 1 }, allowed: "must be a list of 0 to 1000 points" },
   { rule: "more than 1000 points", edit: (s) => { s.points = Array.from({ length: 1001 }, (_, i) => ({ x_m: i + 1, y_m: 0 })); }, field: "points", value: "1001 items", allowed: "0 to 1000 points", cli: true },
-  { rule: "a point not an object", edit: (s) => { s.points[0] = [1000, 0]; }, field: "points[0]", value: [1000, 0], allowed: "must be an object (name and source_note)" },
+  { rule: "a point not an object", edit: (s) => { s.points[0] = [1000, 0]; }, field: "points[0]", value: [1000, 0], allowed: "must be an object" },
   { rule: "point x missing", edit: (s) => { delete s.points[0].x_m; }, field: "points[0].x_m", value: undefined, allowed: "is required; must be a number from -1e6 to 1e6 m", cli: true },
   { rule: "point x beyond 1e6 m", edit: (s) => { s.points[0].x_m = 1e6 + 1; }, field: "points[0].x_m", value: 1e6 + 1, allowed: "from -1e6 to 1e6 m" },
   { rule: "point y beyond -1e6 m", edit: (s) => { s.points[0].y_m = -1e6 - 1; }, field: "points[0].y_m", value: -1e6 - 1, allowed: "from -1e6 to 1e6 m" },

@@ -19,9 +19,8 @@ import {
   writeLimitSetsCsv,
   writeLimitSetsJson,
 } from "../../storage/limit-sets.ts";
-import type { FormState, LimitForm } from "../form.ts";
+import type { FormState } from "../form.ts";
 import type { Action } from "../store.ts";
-import { parseNumber } from "../units.ts";
 import { applySet, setFromForm } from "./fill.ts";
 import "./limitsets.css";
 
@@ -369,22 +368,17 @@ export function LimitSetPanel({ form, dispatch }: LimitSetPanelProps) {
           </div>
         ) : null}
         <div class="dm-sets-actions">
-          <button
-            type="button"
-            class="secondary"
-            disabled={stored.length === 0}
-            onClick={() => exportAs("csv")}
-          >
-            Export limit sets (CSV)
-          </button>
-          <button
-            type="button"
-            class="secondary"
-            disabled={stored.length === 0}
-            onClick={() => exportAs("json")}
-          >
-            Export limit sets (JSON)
-          </button>
+          {(["csv", "json"] as const).map((kind) => (
+            <button
+              key={kind}
+              type="button"
+              class="secondary"
+              disabled={stored.length === 0}
+              onClick={() => exportAs(kind)}
+            >
+              Export limit sets ({kind.toUpperCase()})
+            </button>
+          ))}
         </div>
         <p class="hint">
           Driftmark ships no substance data: only the invented demo set, '{DEMO_LIMIT_SET.name}'.
