@@ -14,6 +14,7 @@ import {
   samplingTime,
 } from "../../src/core/averaging.ts";
 import { erf } from "../../src/core/numeric.ts";
+import { runs } from "../support/fast-check.ts";
 
 describe("meander correction σy,eff = σy·(t_s/600)^0.2 (Turner 1970 ch. 3, p = 0.2)", () => {
   it("is 1 at the 10-minute reference and (t_s/600)^0.2 elsewhere", () => {
@@ -87,7 +88,7 @@ describe("Palazzi et al. (1982) window-average factor F", () => {
           );
         },
       ),
-      { numRuns: 100 },
+      runs(100),
     );
   });
 
@@ -130,7 +131,7 @@ describe("Palazzi et al. (1982) window-average factor F", () => {
           expect(durationFactor(T * 1.5, ta, u, sx)).toBeGreaterThanOrEqual(f - 1e-9);
         },
       ),
-      { numRuns: 200 },
+      runs(200),
     );
   });
 

@@ -6,6 +6,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { brent, clamp, erf, goldenMax, ringArea } from "../../src/core/numeric.ts";
+import { runs } from "../support/fast-check.ts";
 
 describe("erf", () => {
   // Abramowitz & Stegun (1964), Handbook of Mathematical Functions, Table 7.1 (10 decimals).
@@ -38,7 +39,7 @@ describe("erf", () => {
         // === rather than Object.is: erf(−0) may be +0.
         expect(erf(-x) === -erf(x)).toBe(true);
       }),
-      { numRuns: 300 },
+      runs(300),
     );
   });
 
@@ -52,7 +53,7 @@ describe("erf", () => {
           expect(Math.abs(erf(x))).toBeLessThanOrEqual(1);
         },
       ),
-      { numRuns: 300 },
+      runs(300),
     );
   });
 
@@ -104,7 +105,7 @@ describe("brent", () => {
         const x = brent(f, root - 7.3, root + 11.1, 1e-10);
         expect(Math.abs(x - root)).toBeLessThan(1e-8);
       }),
-      { numRuns: 200 },
+      runs(200),
     );
   });
 });

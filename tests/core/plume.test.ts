@@ -9,6 +9,7 @@ import { MIN_DISTANCE_M, makePlume } from "../../src/core/plume.ts";
 import { briggsSigmaY, briggsSigmaZ, pgSigmaY, pgSigmaZ } from "../../src/core/sigma.ts";
 import type { PlumeSetup, Release, SigmaScheme, StabilityClass } from "../../src/core/types.ts";
 import { verticalTerm } from "../../src/core/vertical.ts";
+import { runs } from "../support/fast-check.ts";
 
 function setup(o: {
   release: Release;
@@ -175,7 +176,7 @@ describe("meander and shape", () => {
           expect(p.concentration(-x, y, z)).toBe(0);
         },
       ),
-      { numRuns: 200 },
+      runs(200),
     );
     expect(p.concentration(0, 0, 1.5)).toBe(0);
   });

@@ -6,6 +6,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { estimate } from "../../src/core/index.ts";
 import type { EstimateOutput, Scenario, ScenarioLimit } from "../../src/core/types.ts";
+import { runs } from "../support/fast-check.ts";
 
 const logUniform = (lo: number, hi: number) =>
   fc.double({ min: Math.log10(lo), max: Math.log10(hi), noNaN: true }).map((e) => 10 ** e);
@@ -111,7 +112,7 @@ describe("estimate over random valid scenarios", () => {
       fc.property(scenarioArb, (s) => {
         expect(allFinite(estimate(s, { geojson: false }))).toBeNull();
       }),
-      { numRuns: 150 },
+      runs(150),
     );
   });
 
@@ -127,7 +128,7 @@ describe("estimate over random valid scenarios", () => {
           expect(allFinite(o)).toBeNull();
         },
       ),
-      { numRuns: 30 },
+      runs(30),
     );
   });
 
@@ -148,7 +149,7 @@ describe("estimate over random valid scenarios", () => {
           else if (hi !== null) expect(hi).toBeLessThanOrEqual(lo * (1 + 1e-9));
         },
       ),
-      { numRuns: 150 },
+      runs(150),
     );
   });
 
@@ -171,7 +172,7 @@ describe("estimate over random valid scenarios", () => {
           }
         });
       }),
-      { numRuns: 100 },
+      runs(100),
     );
   });
 
@@ -209,7 +210,7 @@ describe("estimate over random valid scenarios", () => {
           }
         },
       ),
-      { numRuns: 100 },
+      runs(100),
     );
   });
 });

@@ -15,6 +15,7 @@ import {
   solarElevationDeg,
   sunPosition,
 } from "../../src/core/solar.ts";
+import { runs } from "../support/fast-check.ts";
 
 const MIN = 60_000;
 const HOUR = 3_600_000;
@@ -55,7 +56,7 @@ describe("sunPosition", () => {
         expect(rightAscensionDeg).toBeGreaterThanOrEqual(0);
         expect(rightAscensionDeg).toBeLessThan(360);
       }),
-      { numRuns: 300 },
+      runs(300),
     );
   });
 });
@@ -73,7 +74,7 @@ describe("solarElevationDeg", () => {
           expect(Math.abs(ours - ref)).toBeLessThan(0.03);
         },
       ),
-      { numRuns: 1000 },
+      runs(1000),
     );
   });
 
@@ -91,7 +92,7 @@ describe("solarElevationDeg", () => {
           expect(Math.abs(ours - referenceAltitude(t, lat, lon, true))).toBeLessThan(0.1);
         },
       ),
-      { numRuns: 300 },
+      runs(300),
     );
   });
 
@@ -177,7 +178,7 @@ describe("isNightByClock", () => {
           expect(isNightByClock(t, la, lo)).toBe(true);
         },
       ),
-      { numRuns: 300 },
+      runs(300),
     );
   });
 });

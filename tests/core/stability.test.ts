@@ -20,6 +20,7 @@ import {
   windAt10m,
 } from "../../src/core/stability.ts";
 import { STABILITY_CLASSES, type StabilityClass } from "../../src/core/types.ts";
+import { runs } from "../support/fast-check.ts";
 
 /** [representative wind (m/s), sky, cell as printed, source]. 5 wind bins × 6 skies. */
 const CELLS: [number, TableSky, string, string][] = [
@@ -332,7 +333,7 @@ describe("suggestStability", () => {
           expect(r.reason.endsWith(r.stability)).toBe(true);
         },
       ),
-      { numRuns: 300 },
+      runs(300),
     );
   });
 });

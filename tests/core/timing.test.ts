@@ -10,6 +10,7 @@ import { briggsSigmaY, briggsSigmaZ } from "../../src/core/sigma.ts";
 import { cloudPassage, passageAt } from "../../src/core/timing.ts";
 import type { PlumeSetup, Release } from "../../src/core/types.ts";
 import { verticalTerm } from "../../src/core/vertical.ts";
+import { runs } from "../support/fast-check.ts";
 
 const U = 2.5;
 function plumeOf(release: Release, ta: number) {
@@ -127,7 +128,7 @@ describe("finite release of duration T: symmetric about x/u + T/2", () => {
           }
         },
       ),
-      { numRuns: 200 },
+      runs(200),
     );
   });
 

@@ -5,6 +5,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { MOLAR_VOLUME_L, mgM3ToPpm, ppmToMgM3 } from "../../src/core/units.ts";
+import { runs } from "../support/fast-check.ts";
 
 describe("ppm ↔ mg/m³", () => {
   it("uses 24.45 L/mol (NIOSH Pocket Guide, Introduction: conversions at 25 °C and 1 atm)", () => {
@@ -34,7 +35,7 @@ describe("ppm ↔ mg/m³", () => {
           expect(ppmToMgM3(mgM3ToPpm(v, mw), mw) / v).toBeCloseTo(1, 12);
         },
       ),
-      { numRuns: 200 },
+      runs(200),
     );
   });
 

@@ -5,6 +5,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { verticalTerm, WELL_MIXED_RATIO } from "../../src/core/vertical.ts";
+import { runs } from "../support/fast-check.ts";
 
 /** Image sum of model.md, n from −N to N (Turner 1970 eq. 5.2 form, from memory). */
 function imageSum(z: number, H: number, sz: number, L: number, N: number): number {
@@ -44,7 +45,7 @@ describe("V(z)", () => {
           expect(Math.abs(a - b)).toBeLessThanOrEqual(1e-12 * Math.max(b, 1e-300) + 1e-300);
         },
       ),
-      { numRuns: 200 },
+      runs(200),
     );
   });
 

@@ -9,9 +9,8 @@ import { describe, expect, test } from "vitest";
 import { estimate, ScenarioError } from "../../src/core/index.ts";
 import { RANGES } from "../../src/core/scenario.ts";
 import type { Scenario, ScenarioProblem } from "../../src/core/types.ts";
+import { runs, timeout } from "../support/fast-check.ts";
 import { expectSoundEstimate, numbersIn, validScenario } from "./arbitraries.ts";
-
-const SEED = 5150;
 
 function rejection(raw: unknown): ScenarioError {
   try {
@@ -114,83 +113,91 @@ function setPath(root: Record<string, unknown>, path: string[], value: unknown):
 }
 
 describe("an invalid scenario is rejected naming the field, never with NaN", () => {
-  test("one numeric field out of range, non-finite or of the wrong type", () => {
-    const names = Object.keys(FIELDS);
-    const arb = fc
-      .tuple(
-        validScenario({ maxLimits: 3, swing: true, source: true, maxPoints: 1 }),
-        fc.constantFrom(...names),
-      )
-      .chain(([s, name]) => {
-        const f = FIELDS[name] as NumericField;
-        return fc.tuple(fc.constant(s), fc.constant(name), badValue(f.range));
-      });
-    fc.assert(
-      fc.property(arb, ([s, name, bad]) => {
-        const f = FIELDS[name] as NumericField;
-        const path = f.path(s);
-        fc.pre(path !== null);
-        const broken = structuredClone(s) as unknown as Record<string, unknown>;
-        // null in an optional field means "leave it out" to no one: it is still reported.
-        setPath(broken, path as string[], bad);
-        const err = rejection(broken);
-        expect(err.problems.length).toBeGreaterThan(0);
-        for (const p of err.problems) expectReadable(p);
-        expect(
-          err.problems.map((p) => p.field),
-          `${name} = ${String(bad)}`,
-        ).toContain(name);
-      }),
-      { numRuns: 2_000, seed: SEED },
-    );
-  }, 120_000);
-
-  test("anything at all: a sound estimate or a ScenarioError, never another exception", () => {
-    // Random JSON, and valid scenarios with one subtree replaced by random JSON.
-    const json = fc.jsonValue({ maxDepth: 4 });
-    const arb = fc.oneof(
-      fc.anything({ maxDepth: 3 }),
-      fc
+  test(
+    "one numeric field out of range, non-finite or of the wrong type",
+    () => {
+      const names = Object.keys(FIELDS);
+      const arb = fc
         .tuple(
-          validScenario({ maxLimits: 2, swing: true, source: true, maxPoints: 1 }),
-          fc.constantFrom(
-            "release",
-            "weather",
-            "limits",
-            "source",
-            "points",
-            "release.kind",
-            "weather.stability",
-            "weather.sky",
-            "weather.time",
-            "limits.0",
-            "limits.0.unit",
-            "limits.0.label",
-          ),
-          json,
+          validScenario({ maxLimits: 3, swing: true, source: true, maxPoints: 1 }),
+          fc.constantFrom(...names),
         )
-        .map(([s, where, v]) => {
+        .chain(([s, name]) => {
+          const f = FIELDS[name] as NumericField;
+          return fc.tuple(fc.constant(s), fc.constant(name), badValue(f.range));
+        });
+      fc.assert(
+        fc.property(arb, ([s, name, bad]) => {
+          const f = FIELDS[name] as NumericField;
+          const path = f.path(s);
+          fc.pre(path !== null);
           const broken = structuredClone(s) as unknown as Record<string, unknown>;
-          setPath(broken, where.split("."), v);
-          return broken;
+          // null in an optional field means "leave it out" to no one: it is still reported.
+          setPath(broken, path as string[], bad);
+          const err = rejection(broken);
+          expect(err.problems.length).toBeGreaterThan(0);
+          for (const p of err.problems) expectReadable(p);
+          expect(
+            err.problems.map((p) => p.field),
+            `${name} = ${String(bad)}`,
+          ).toContain(name);
         }),
-    );
-    fc.assert(
-      fc.property(arb, (raw) => {
-        let out: ReturnType<typeof estimate> | null = null;
-        try {
-          out = estimate(raw);
-        } catch (err) {
-          expect(err, "only ScenarioError escapes").toBeInstanceOf(ScenarioError);
-          for (const p of (err as ScenarioError).problems) expectReadable(p);
-          expect((err as ScenarioError).message).not.toContain("NaN");
-          return;
-        }
-        // Accepted (a replacement that happens to be valid): the result is sound.
-        expectSoundEstimate(raw as Scenario, out);
-        expect(numbersIn(out).every(([, v]) => Number.isFinite(v))).toBe(true);
-      }),
-      { numRuns: 2_000, seed: SEED + 1 },
-    );
-  }, 120_000);
+        runs(2_000),
+      );
+    },
+    timeout(120_000),
+  );
+
+  test(
+    "anything at all: a sound estimate or a ScenarioError, never another exception",
+    () => {
+      // Random JSON, and valid scenarios with one subtree replaced by random JSON.
+      const json = fc.jsonValue({ maxDepth: 4 });
+      const arb = fc.oneof(
+        fc.anything({ maxDepth: 3 }),
+        fc
+          .tuple(
+            validScenario({ maxLimits: 2, swing: true, source: true, maxPoints: 1 }),
+            fc.constantFrom(
+              "release",
+              "weather",
+              "limits",
+              "source",
+              "points",
+              "release.kind",
+              "weather.stability",
+              "weather.sky",
+              "weather.time",
+              "limits.0",
+              "limits.0.unit",
+              "limits.0.label",
+            ),
+            json,
+          )
+          .map(([s, where, v]) => {
+            const broken = structuredClone(s) as unknown as Record<string, unknown>;
+            setPath(broken, where.split("."), v);
+            return broken;
+          }),
+      );
+      fc.assert(
+        fc.property(arb, (raw) => {
+          let out: ReturnType<typeof estimate> | null = null;
+          try {
+            out = estimate(raw);
+          } catch (err) {
+            expect(err, "only ScenarioError escapes").toBeInstanceOf(ScenarioError);
+            for (const p of (err as ScenarioError).problems) expectReadable(p);
+            expect((err as ScenarioError).message).not.toContain("NaN");
+            return;
+          }
+          // Accepted (a replacement that happens to be valid): the result is sound.
+          expectSoundEstimate(raw as Scenario, out);
+          expect(numbersIn(out).every(([, v]) => Number.isFinite(v))).toBe(true);
+        }),
+        runs(2_000),
+      );
+    },
+    timeout(120_000),
+  );
 });
