@@ -184,9 +184,10 @@ export function App({ makeEstimator }: AppProps = {}) {
         result={stale ? null : (last?.output ?? null)}
         onReopen={loadScenario}
         positionFix={positionFix}
+        units={units}
       />
     ),
-    [stale, last, loadScenario, positionFix],
+    [stale, last, loadScenario, positionFix, units],
   );
 
   if (view === "about") {

@@ -22,6 +22,7 @@ export function EntryDetail(p: {
   onReopen: () => void;
   onShare: (entry: LogEntry, recomputed: EstimateOutput) => void;
   onCopy: (entry: LogEntry, recomputed: EstimateOutput) => void;
+  onPrint: (entry: LogEntry, recomputed: EstimateOutput) => void;
   onDelete: () => void;
   onClose: () => void;
 }) {
@@ -96,6 +97,14 @@ export function EntryDetail(p: {
           onClick={() => out && p.onCopy(e, out)}
         >
           Copy GeoJSON
+        </button>
+        <button
+          type="button"
+          class="secondary"
+          disabled={out === null}
+          onClick={() => out && p.onPrint(e, out)}
+        >
+          Print this estimate
         </button>
         <button type="button" class="secondary" onClick={p.onDelete}>
           Delete entry

@@ -20,6 +20,8 @@ import { ImportFileError, StorageQuotaError } from "../../storage/errors.ts";
 import { newEntry } from "../../storage/log.ts";
 import { formatBytes } from "../../storage/persist.ts";
 import type { LogEntry } from "../../storage/schema.ts";
+import { sheetOfEntry } from "../sheet/entry.ts";
+import type { UnitSystem } from "../units.ts";
 import { EntryDetail } from "./EntryDetail.tsx";
 import { type LogSummary, matches, timeText } from "./summary.ts";
 import { useLog } from "./useLog.ts";
@@ -34,6 +36,8 @@ export interface LogSectionProps {
   onReopen: (scenario: Scenario) => void;
   /** The last position the device gave, with its accuracy (m); null when none. */
   positionFix?: { lat: number; lon: number; accuracyM: number } | null;
+  /** Display units of the estimate sheet. */
+  units?: UnitSystem;
 }
 
 /** The word to type before the whole log is deleted. */
@@ -45,7 +49,18 @@ function message(e: unknown): string {
   return e instanceof Error ? e.message : String(e);
 }
 
-export function LogSection({ scenario, result, onReopen, positionFix = null }: LogSectionProps) {
+/** Opens the estimate sheet of an entry in the print dialog (the sheet's code loads on demand). */
+function printEntry(entry: LogEntry, output: EstimateOutput, units: UnitSystem): Promise<void> {
+  return import("../sheet/print.tsx").then((m) => m.printSheet(sheetOfEntry(entry, output, units)));
+}
+
+export function LogSection({
+  scenario,
+  result,
+  onReopen,
+  positionFix = null,
+  units = "metric",
+}: LogSectionProps) {
   const log = useLog();
   const [note, setNote] = useState("");
   const [notice, setNotice] = useState<{ text: string; alert?: boolean } | null>(null);
@@ -105,8 +120,19 @@ export function LogSection({ scenario, result, onReopen, positionFix = null }: L
     if (lastLogged.current?.result === result && withNote === lastLogged.current.entry.note) {
       return lastLogged.current.entry;
     }
+    const entry = draftEntry(scenario, result, withNote);
+    lastLogged.current = { result, entry };
+    if (await write(entry)) {
+      setNotice({ text: `Logged: estimate of ${timeText(entry.time_local)}.` });
+      setNote("");
+    }
+    return entry;
+  }
+
+  /** An entry for the estimate on screen (time stamp and place), not yet written. */
+  const draftEntry = (scenario: Scenario, result: EstimateOutput, withNote: string) => {
     const src = scenario.source;
-    const entry = newEntry({
+    return newEntry({
       scenario,
       result,
       place: src
@@ -122,13 +148,7 @@ export function LogSection({ scenario, result, onReopen, positionFix = null }: L
         : null,
       note: withNote.trim(),
     });
-    lastLogged.current = { result, entry };
-    if (await write(entry)) {
-      setNotice({ text: `Logged: estimate of ${timeText(entry.time_local)}.` });
-      setNote("");
-    }
-    return entry;
-  }
+  };
 
   async function share(how: "share" | "copy", sc: Scenario, out: EstimateOutput, time: string) {
     const made = footprintFile(sc, out, time);
@@ -307,6 +327,23 @@ export function LogSection({ scenario, result, onReopen, positionFix = null }: L
           >
             Copy GeoJSON
           </button>
+          <button
+            type="button"
+            class="secondary"
+            disabled={!scenario || !result}
+            onClick={() => {
+              if (scenario && result) {
+                printEntry(draftEntry(scenario, result, note), result, units).catch((e) =>
+                  setNotice({
+                    text: `The estimate sheet could not be opened: ${message(e)}`,
+                    alert: true,
+                  }),
+                );
+              }
+            }}
+          >
+            Print this estimate
+          </button>
         </div>
         {!result ? (
           <p class="hint">Nothing to log until the estimate is up to date.</p>
@@ -422,6 +459,14 @@ export function LogSection({ scenario, result, onReopen, positionFix = null }: L
           }}
           onShare={(e, out) => void share("share", e.scenario, out, e.time_local)}
           onCopy={(e, out) => void share("copy", e.scenario, out, e.time_local)}
+          onPrint={(e, out) =>
+            printEntry(e, out, units).catch((err) =>
+              setNotice({
+                text: `The estimate sheet could not be opened: ${message(err)}`,
+                alert: true,
+              }),
+            )
+          }
           onDelete={() => void deleteSelected()}
           onClose={() => setSelected(null)}
         />

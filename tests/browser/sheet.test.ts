@@ -1,0 +1,128 @@
+// The estimate sheet in Debian's chromium against the built app: "Print this estimate" from the
+// screen and from a log entry gives one page on A4 and on US Letter, whose text holds the caution,
+// each band's reach and the limit set's source note, and none of the app's controls.
+// Run: npm run build && npx vitest run -c vitest.browser.config.ts tests/browser/sheet.test.ts
+import { writeFileSync } from "node:fs";
+import { join } from "node:path";
+import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
+import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { CAUTION } from "../../src/core/caution.ts";
+import { DEMO_LIMIT_SET } from "../../src/storage/limit-sets.ts";
+import { ensureOutputDir, launchBrowser, startApp } from "./harness.ts";
+
+type App = Awaited<ReturnType<typeof startApp>>;
+let app: App;
+beforeAll(async () => {
+  app = await startApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
+
+const squash = (s: string) => s.replace(/\s+/g, " ").trim();
+
+/** Page count and text of a PDF (pdf.js text layer, every page). */
+async function readPdf(bytes: Buffer): Promise<{ pages: number; text: string }> {
+  const doc = await getDocument({
+    data: new Uint8Array(bytes),
+    isEvalSupported: false,
+    useSystemFonts: false,
+    disableFontFace: true,
+  }).promise;
+  const parts: string[] = [];
+  for (let i = 1; i <= doc.numPages; i++) {
+    const content = await (await doc.getPage(i)).getTextContent();
+    for (const item of content.items) if ("str" in item) parts.push(item.str);
+  }
+  const pages = doc.numPages;
+  await doc.destroy();
+  return { pages, text: squash(parts.join(" ")) };
+}
+
+/**
+ * Both paper sizes: one page each, and the text of each. `show` taps "Print this estimate" before
+ * each: printing (page.pdf too) ends with `afterprint`, which takes the sheet away.
+ */
+async function printBoth(page: Page, name: string, show: () => Promise<void>): Promise<string[]> {
+  const texts: string[] = [];
+  for (const format of ["A4", "Letter"] as const) {
+    await stubPrint(page);
+    await show();
+    await page.getByTestId("estimate-sheet").waitFor({ state: "attached" });
+    const pdf = await page.pdf({ format, printBackground: true });
+    writeFileSync(join(ensureOutputDir(), `${name}-${format}.pdf`), pdf);
+    const { pages, text } = await readPdf(pdf);
+    expect(pages, `${name} on ${format}`).toBe(1);
+    texts.push(text);
+  }
+  return texts;
+}
+
+/** Keep the sheet on the page: headless chromium has no print dialog to close. */
+async function stubPrint(page: Page): Promise<void> {
+  await page.evaluate(() => {
+    window.print = () => undefined;
+  });
+}
+
+describe("the estimate sheet", () => {
+  it("prints one page on A4 and Letter from the screen and from a log entry", async () => {
+    const b = await launchBrowser();
+    try {
+      const { page } = b;
+      await page.goto(app.url);
+      const field = page.getByLabel("Limit set", { exact: true });
+      await field.waitFor({ timeout: 15_000 });
+      await field.pressSequentially("su");
+      await page
+        .getByRole("listbox", { name: "Limit sets" })
+        .getByRole("option", { name: /Substance X/ })
+        .click();
+      await expect
+        .poll(() => page.locator("#limit-set-hint").textContent())
+        .toContain(DEMO_LIMIT_SET.source_note);
+      const print = page.getByRole("button", { name: "Print this estimate" });
+      await expect.poll(() => print.isEnabled(), { timeout: 15_000 }).toBe(true);
+      const reaches = await page.locator('[data-testid^="band-reach-"]').allTextContents();
+      expect(reaches.length).toBe(DEMO_LIMIT_SET.limits.length);
+
+      await stubPrint(page);
+      await print.click();
+      const sheet = page.getByTestId("estimate-sheet");
+      await sheet.waitFor({ state: "attached" });
+      expect(await page.locator('[data-testid^="sheet-reach-"]').allTextContents()).toEqual(
+        reaches,
+      );
+      // The caution comes first on the sheet.
+      expect(squash((await sheet.textContent()) ?? "").startsWith(squash(CAUTION))).toBe(true);
+      for (const text of await printBoth(page, "sheet-screen", () => print.click())) {
+        expect(text).toContain(squash(CAUTION));
+        for (const r of reaches) expect(text).toContain(squash(r));
+        expect(text).toContain(squash(DEMO_LIMIT_SET.source_note));
+        expect(text).toContain(DEMO_LIMIT_SET.name);
+        for (const l of DEMO_LIMIT_SET.limits) expect(text).toContain(l.label);
+        // Nothing of the app's chrome.
+        expect(text).not.toContain("Log this estimate");
+        expect(text).not.toContain("What this model cannot do");
+        expect(text).not.toContain("Zoom");
+      }
+
+      // From a log entry: log it, open it, print it.
+      await sheet.waitFor({ state: "detached" });
+      await page.getByRole("button", { name: "Log this estimate" }).click();
+      await page.getByText(/^Logged: estimate of/).waitFor({ timeout: 10_000 });
+      await page.locator(".dm-log-rowbtn").first().click();
+      const detail = page.getByTestId("log-detail");
+      await detail.waitFor();
+      const printEntry = detail.getByRole("button", { name: "Print this estimate" });
+      for (const text of await printBoth(page, "sheet-log-entry", () => printEntry.click())) {
+        expect(text).toContain(squash(CAUTION));
+        for (const r of reaches) expect(text).toContain(squash(r));
+        expect(text).toContain(squash(DEMO_LIMIT_SET.source_note));
+      }
+    } finally {
+      await b.close();
+    }
+  });
+});
