@@ -11,6 +11,7 @@ import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
 import { type BrowserResults, browserBench, chromiumVersion } from "./browser.ts";
 import { bundleReport, DIST, FIRST_SCREEN_JS_GZIP_BUDGET, REPO } from "./bundle.ts";
+import { limitSetBench } from "./limit-sets.ts";
 import { compare, compareCases, solveTimings } from "./solve.ts";
 
 const args = new Set(process.argv.slice(2));
@@ -70,6 +71,19 @@ async function main() {
     );
   }
 
+  // --- limit sets import ---------------------------------------------------------------------
+  const sets = await limitSetBench(quick ? 10 : 30);
+  console.log(
+    `\nlimit sets file: ${sets.sets} invented sets, ${sets.limits} limits, ${kB(sets.csv_bytes)} kB CSV (ms)`,
+  );
+  for (const [label, v] of [
+    ["read + check CSV", sets.read_csv],
+    ["read + check JSON", sets.read_json],
+    ["CSV read + store in one transaction (fake-indexeddb)", sets.store_import],
+  ] as const) {
+    console.log(`  ${label.padEnd(54)} median ${ms(v.median_ms).padStart(7)}  p95 ${ms(v.p95_ms)}`);
+  }
+
   // --- bundle ------------------------------------------------------------------------------
   let built = "existing dist/";
   if (args.has("--build") || !existsSync(join(DIST, "index.html"))) {
@@ -123,6 +137,7 @@ async function main() {
     quick,
     footprint_solve: solve,
     analytic_vs_brute_force: cmp,
+    limit_sets_import: sets,
     bundle: {
       built,
       built_at: builtAt,
@@ -195,6 +210,13 @@ function writeReadmeTable(r: any): void {
     b?.cold_start_from_sw_cache,
   );
   brow("reload → 10,000 log entries listed (4× throttle)", b?.list_10000_log_entries);
+  const ls = r.limit_sets_import;
+  if (ls) {
+    rows.push(
+      `| limit sets CSV, ${ls.sets} sets / ${ls.limits} limits: read + check | ${ms(ls.read_csv.median_ms)} ms | ${ms(ls.read_csv.p95_ms)} ms |`,
+      `| limit sets CSV: read + check + store (fake-indexeddb, Node) | ${ms(ls.store_import.median_ms)} ms | ${ms(ls.store_import.p95_ms)} ms |`,
+    );
+  }
   rows.push(
     "",
     "| analytic vs brute force (one band, 400×400) | speed ratio | reach error analytic / brute | area error analytic / outline / brute |",
