@@ -115,6 +115,9 @@ describe("the estimate sheet", () => {
       await page.locator(".dm-log-rowbtn").first().click();
       const detail = page.getByTestId("log-detail");
       await detail.waitFor();
+      expect(await detail.getByTestId("log-limit-set").textContent()).toContain(
+        DEMO_LIMIT_SET.source_note,
+      );
       const printEntry = detail.getByRole("button", { name: "Print this estimate" });
       for (const text of await printBoth(page, "sheet-log-entry", () => printEntry.click())) {
         expect(text).toContain(squash(CAUTION));

@@ -1,6 +1,7 @@
 import { check } from "@placemarkio/check-geojson";
 import { describe, expect, it } from "vitest";
 import { CAUTION } from "../../src/core/caution.ts";
+import { estimate } from "../../src/core/index.ts";
 import {
   backupFile,
   footprintFile,
@@ -14,6 +15,19 @@ import { demoResult, demoScenario, entryAt } from "../storage/fixtures.ts";
 const STAMP = "2024-05-01T14:03:05+02:00";
 
 describe("footprint file", () => {
+  it("names the limit set used, with its source note, on the collection and every feature", () => {
+    const used = { name: "Gas Q (invented)", source_note: "Invented list, rev. 2" };
+    const scenario = { ...demoScenario, limit_set: used };
+    const out = footprintFile(scenario, estimate(scenario), STAMP);
+    const parsed = JSON.parse(out?.file.text ?? "{}");
+    expect(parsed.limit_set).toEqual(used);
+    expect(parsed.features.length).toBeGreaterThan(0);
+    for (const f of parsed.features) expect(f.properties.limit_set).toEqual(used);
+    expect(
+      JSON.parse(footprintFile(demoScenario, demoResult, STAMP)?.file.text ?? "{}").limit_set,
+    ).toBeUndefined();
+  });
+
   it("is named with the estimate's local time stamp", () => {
     expect(footprintFileName(STAMP)).toBe("driftmark-footprint-20240501-140305.geojson");
   });

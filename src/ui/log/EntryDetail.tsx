@@ -38,6 +38,12 @@ export function EntryDetail(p: {
         {e.results.stability_used}.
       </p>
       {e.note ? <p class="dm-log-note">Note: {e.note}</p> : null}
+      {e.scenario.limit_set ? (
+        <p data-testid="log-limit-set">
+          Limit set: {e.scenario.limit_set.name}. Source:{" "}
+          {e.scenario.limit_set.source_note || "none given"}.
+        </p>
+      ) : null}
       {differs ? (
         <p class="dm-log-version" role="note">
           Logged with {e.model_version}; this app runs {MODEL_VERSION}. Stored figures are shown
