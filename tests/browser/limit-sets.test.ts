@@ -164,6 +164,26 @@ describe("limit sets in the browser", () => {
       expect(await page.locator("summary", { hasText: "Manage limit sets" }).textContent()).toBe(
         "Manage limit sets (6 saved)",
       );
+
+      // Night theme, the management part open: no accessibility violations, 44 px targets.
+      await page.evaluate(() => localStorage.setItem("driftmark.theme", "night"));
+      await page.reload();
+      await page.getByLabel("Limit set", { exact: true }).waitFor({ timeout: 15_000 });
+      expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe("night");
+      await page.locator("summary", { hasText: "Manage limit sets" }).click();
+      await page.getByLabel("Limit set", { exact: true }).pressSequentially("ga");
+      await page.getByRole("listbox", { name: "Limit sets" }).getByRole("option").first().waitFor();
+      const axe = await new AxeBuilder({ page }).include(".dm-sets").analyze();
+      expect(axe.violations.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
+      const small = await page
+        .locator(".dm-sets button, .dm-sets summary, .dm-sets [role='option'], .dm-sets input")
+        .evaluateAll((els) =>
+          els
+            .map((e) => e.getBoundingClientRect())
+            .filter((r) => r.width > 0 && r.height < 44)
+            .map((r) => r.height),
+        );
+      expect(small).toEqual([]);
     } finally {
       await b.close();
     }
