@@ -128,4 +128,57 @@ describe("the estimate sheet", () => {
       await b.close();
     }
   });
+
+  it("fits twelve limits on one page, every band's reach readable", async () => {
+    const b = await launchBrowser();
+    try {
+      const { page } = b;
+      await page.goto(app.url);
+      const rows = Array.from(
+        { length: 12 },
+        (_, i) =>
+          `Gas Many (invented),34,Tier ${i + 1} (invented),${(i + 1) * 4},ppm,${[10, 30, 60][i % 3]},Invented twelve-tier list`,
+      );
+      await page.getByLabel("Limit set", { exact: true }).waitFor({ timeout: 15_000 });
+      await page.locator("summary", { hasText: "Manage limit sets" }).click();
+      await page.getByLabel("Limit sets file").setInputFiles({
+        name: "many.csv",
+        mimeType: "text/csv",
+        buffer: Buffer.from(
+          [
+            "set_name,molecular_weight_g_mol,limit_label,value,unit,averaging_min,source_note",
+            ...rows,
+          ].join("\n"),
+        ),
+      });
+      await page.getByText("Imported 1 limit set.").waitFor();
+      await page.getByLabel("Limit set", { exact: true }).pressSequentially("ma");
+      await page
+        .getByRole("listbox", { name: "Limit sets" })
+        .getByRole("option", { name: /Gas Many/ })
+        .click();
+      await expect
+        .poll(() => page.locator('[data-testid^="band-reach-"]').count(), { timeout: 15_000 })
+        .toBe(12);
+      const print = page.getByRole("button", { name: "Print this estimate" });
+      await expect.poll(() => print.isEnabled(), { timeout: 15_000 }).toBe(true);
+      const reaches = await page.locator('[data-testid^="band-reach-"]').allTextContents();
+      // Twelve bands are taller than a page: the sheet is scaled down to fit, not cut.
+      await stubPrint(page);
+      await print.click();
+      const zoom = await page
+        .getByTestId("estimate-sheet")
+        .evaluate((e) => Number((e as HTMLElement).style.zoom || "1"));
+      expect(zoom).toBeLessThan(1);
+      expect(zoom).toBeGreaterThan(0.4);
+      for (const text of await printBoth(page, "sheet-twelve", () => print.click())) {
+        expect(text).toContain(squash(CAUTION));
+        for (const r of reaches) expect(text).toContain(squash(r));
+        for (let i = 1; i <= 12; i++) expect(text).toContain(`Tier ${i} (invented)`);
+        expect(text).toContain("Invented twelve-tier list");
+      }
+    } finally {
+      await b.close();
+    }
+  });
 });

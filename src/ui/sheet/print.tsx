@@ -18,8 +18,27 @@ export function showSheet(props: SheetProps): HTMLElement {
     document.body.append(host);
   }
   render(<EstimateSheet {...props} />, host);
+  fitPage(host);
   document.documentElement.classList.add("dm-printing");
   return host;
+}
+
+/** The printable height common to A4 and US Letter with 12 mm margins: 255 mm in CSS px. */
+const PAGE_HEIGHT_PX = (255 / 25.4) * 96;
+
+/**
+ * Shrinks the sheet to one page when it is taller (many limits, places or warnings): measured
+ * off screen at its print width, then scaled with CSS zoom so nothing is cut off.
+ */
+function fitPage(host: HTMLElement): void {
+  const sheet = host.firstElementChild as HTMLElement | null;
+  if (!sheet) return;
+  sheet.style.zoom = "";
+  host.style.cssText = "display:block;position:absolute;left:-10000px;top:0;visibility:hidden";
+  const height = sheet.scrollHeight;
+  host.style.cssText = "";
+  if (height > PAGE_HEIGHT_PX)
+    sheet.style.zoom = String(Math.floor((PAGE_HEIGHT_PX / height) * 100) / 100);
 }
 
 /** Removes the sheet and the print mode. */
