@@ -12,6 +12,7 @@ import { join } from "node:path";
 import { type BrowserResults, browserBench, chromiumVersion } from "./browser.ts";
 import { bundleReport, DIST, FIRST_SCREEN_JS_GZIP_BUDGET, REPO } from "./bundle.ts";
 import { limitSetBench } from "./limit-sets.ts";
+import { type MapResults, mapBench } from "./map.ts";
 import { compare, compareCases, solveTimings } from "./solve.ts";
 
 const args = new Set(process.argv.slice(2));
@@ -131,6 +132,19 @@ async function main() {
     }
   }
 
+  // --- map (WebGL through SwiftShader) ----------------------------------------------------
+  let map: MapResults | { skipped: string } = { skipped: "--no-browser" };
+  if (!args.has("--no-browser")) {
+    console.log("\nmap (chromium with SwiftShader WebGL, main thread throttled 4×) …");
+    try {
+      map = await mapBench({ coldRuns: quick ? 2 : 5, keystrokes: quick ? 10 : 20 });
+      console.log(JSON.stringify(map, null, 2));
+    } catch (err) {
+      map = { skipped: `failed: ${err instanceof Error ? err.message : String(err)}` };
+      console.log(map.skipped);
+    }
+  }
+
   const results = {
     generated: new Date().toISOString(),
     machine: m,
@@ -146,6 +160,7 @@ async function main() {
       dist: "dist",
     },
     browser,
+    map,
   };
   writeFileSync(join(REPO, "bench", "results.json"), `${JSON.stringify(results, null, 2)}\n`);
   writeReadmeTable(results);
@@ -217,6 +232,14 @@ function writeReadmeTable(r: any): void {
       `| limit sets CSV: read + check + store (fake-indexeddb, Node) | ${ms(ls.store_import.median_ms)} ms | ${ms(ls.store_import.p95_ms)} ms |`,
     );
   }
+  brow(
+    "map: cold start from the SW cache, offline → footprint drawn on the map (4× throttle)",
+    r.map?.cold_start_to_map_footprint ?? { missing: r.map?.skipped },
+  );
+  brow(
+    "map: keystroke in Release rate → footprint redrawn on the map (4× throttle)",
+    r.map?.keystroke_to_map_footprint ?? { missing: r.map?.skipped },
+  );
   rows.push(
     "",
     "| analytic vs brute force (one band, 400×400) | speed ratio | reach error analytic / brute | area error analytic / outline / brute |",
@@ -236,6 +259,9 @@ function writeReadmeTable(r: any): void {
   rows.push(
     `| **first-screen JS** (budget ${kB(bu.budget_first_screen_js_gzip)} kB) | | ${kB(bu.firstScreen.jsGzip)} kB${bu.firstScreen.jsGzip > bu.budget_first_screen_js_gzip ? " — over budget" : ""} |`,
   );
+  // biome-ignore lint/suspicious/noExplicitAny: see above
+  for (const f of (r.map?.chunks ?? []) as any[])
+    rows.push(`| map: ${f.file} (after the first estimate) | ${kB(f.raw)} kB | ${kB(f.gzip)} kB |`);
   if (bu.serviceWorker)
     rows.push(
       `| service worker sw.js | ${kB(bu.serviceWorker.raw)} kB | ${kB(bu.serviceWorker.gzip)} kB |`,

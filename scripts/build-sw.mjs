@@ -49,7 +49,7 @@ try {
     swSrc: join(tmp, "sw.js"),
     swDest: join(DIST, "sw.js"),
     globDirectory: DIST,
-    globPatterns: ["**/*.{html,js,css,png,svg,ico,webmanifest,json,woff2,txt}"],
+    globPatterns: ["**/*.{html,js,mjs,css,png,svg,ico,webmanifest,json,woff2,txt}"],
     globIgnores: ["sw.js"],
     // Vite's hashed files under assets/ are revisioned by name; the rest get a content hash.
     dontCacheBustURLsMatching: /^assets\//,

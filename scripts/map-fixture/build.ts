@@ -48,7 +48,10 @@ function boundsOf(fc: FeatureCollection): [number, number, number, number] {
 }
 
 /** The fixture as bytes, with the number of tiles written. */
-export function buildTownPMTiles(geojsonPath = TOWN_GEOJSON): { bytes: Uint8Array; tiles: number } {
+export function buildTownPMTiles(geojsonPath = TOWN_GEOJSON): {
+  bytes: Uint8Array<ArrayBuffer>;
+  tiles: number;
+} {
   const fc = JSON.parse(readFileSync(geojsonPath, "utf8")) as FeatureCollection;
   const bounds = boundsOf(fc);
   const indexes = new Map<string, GeoJSONVT>();

@@ -70,7 +70,10 @@ export function serializeDirectory(entries: readonly Entry[]): Uint8Array {
  * The whole archive. Identical tile contents are stored once (run-length for consecutive ids,
  * shared offsets otherwise); tiles are written in tile-id order (clustered).
  */
-export function writePMTiles(tiles: readonly TileIn[], opts: WriteOptions): Uint8Array {
+export function writePMTiles(
+  tiles: readonly TileIn[],
+  opts: WriteOptions,
+): Uint8Array<ArrayBuffer> {
   if (tiles.length === 0) throw new Error("writePMTiles: no tiles");
   const sorted = tiles
     .map((t) => ({ ...t, tileId: zxyToTileId(t.z, t.x, t.y) }))

@@ -3,7 +3,6 @@ import { ScenarioError } from "../core/errors.ts";
 import { estimateLocal } from "../core/estimate.ts";
 import type { EstimateOutput, Scenario } from "../core/types.ts";
 import { CautionBanner } from "./components/CautionBanner.tsx";
-import { FootprintView } from "./components/FootprintView.tsx";
 import { LimitsSection } from "./components/LimitsSection.tsx";
 import { ModelSection } from "./components/ModelSection.tsx";
 import { PlaceSection, type PositionFix } from "./components/PlaceSection.tsx";
@@ -20,6 +19,7 @@ import {
 import { DEMO_SCENARIO } from "./demo.ts";
 import { type Evaluation, evaluate, readForm, settle } from "./evaluate.ts";
 import { groupProblems } from "./form.ts";
+import { FootprintArea } from "./map/FootprintArea.tsx";
 import { bandStyles } from "./palette.ts";
 import {
   initialScreen,
@@ -146,6 +146,15 @@ export function App({ makeEstimator }: AppProps = {}) {
     (s: Scenario) => dispatch({ type: "load", scenario: s, origin: "user" }),
     [],
   );
+  const putSource = useCallback(
+    (lat: number, lon: number) =>
+      dispatch({
+        type: "place",
+        lat: String(Number(lat.toFixed(6))),
+        lon: String(Number(lon.toFixed(6))),
+      }),
+    [],
+  );
   // The results and the log change only with a new estimate (or units, or a position fix), not
   // with each keystroke: keep their elements so typing re-renders the form alone.
   const stale = evaluation.stale;
@@ -160,7 +169,17 @@ export function App({ makeEstimator }: AppProps = {}) {
       last.scenario.release.kind === "continuous" && last.scenario.release.duration_s === undefined;
     return (
       <>
-        <FootprintView output={last.output} styles={styles} units={units} placeText={placeText} />
+        <FootprintArea
+          scenario={last.scenario}
+          output={last.output}
+          styles={styles}
+          units={units}
+          placeText={placeText}
+          night={theme === "night"}
+          position={positionFix}
+          onPutSource={putSource}
+          onFix={setPositionFix}
+        />
         <Results
           output={last.output}
           units={units}
@@ -176,7 +195,7 @@ export function App({ makeEstimator }: AppProps = {}) {
         />
       </>
     );
-  }, [last, styles, units]);
+  }, [last, styles, units, theme, positionFix, putSource]);
   const logView = useMemo(
     () => (
       <DeferredLogSection

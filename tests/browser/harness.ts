@@ -31,6 +31,17 @@ export const CHROMIUM_ARGS = [
   "--no-first-run",
 ];
 
+/**
+ * For map tests: WebGL drawn in software by SwiftShader instead of `--disable-gpu` (which leaves
+ * chromium without WebGL, so the app shows its plain drawing instead of the map).
+ */
+export const WEBGL_ARGS = [
+  ...CHROMIUM_ARGS.filter((a) => a !== "--disable-gpu"),
+  "--use-angle=swiftshader",
+  "--enable-unsafe-swiftshader",
+  "--ignore-gpu-blocklist",
+];
+
 export const CHROMIUM_PATH = "/usr/bin/chromium";
 
 /**
@@ -63,6 +74,8 @@ export async function launchBrowser(opts?: {
   profileDir?: string;
   viewport?: { width: number; height: number };
   colorScheme?: "light" | "dark";
+  /** WebGL through SwiftShader (WEBGL_ARGS), for tests that draw the map. */
+  webgl?: boolean;
 }): Promise<{ context: BrowserContext; page: Page; close(): Promise<void> }> {
   if (!existsSync(CHROMIUM_PATH)) {
     throw new Error(`chromium not found at ${CHROMIUM_PATH} (Debian package "chromium")`);
@@ -72,7 +85,7 @@ export async function launchBrowser(opts?: {
   const context = await chromium.launchPersistentContext(dir, {
     executablePath: CHROMIUM_PATH,
     headless: true,
-    args: CHROMIUM_ARGS,
+    args: opts?.webgl ? WEBGL_ARGS : CHROMIUM_ARGS,
     viewport: opts?.viewport ?? { width: 360, height: 640 },
     colorScheme: opts?.colorScheme ?? "light",
     serviceWorkers: "allow",
