@@ -62,7 +62,7 @@ export function FootprintArea(props: FootprintAreaProps) {
       output={props.output}
       units={props.units}
       night={props.night}
-      summary={`Map of the footprint. ${props.placeText}`}
+      summary={`Bands of each limit over the map area, labelled at their far ends; the crosshair marks the map centre. ${props.placeText}`}
       plain={plain}
       position={props.position}
       onPutSource={props.onPutSource}

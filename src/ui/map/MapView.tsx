@@ -179,11 +179,12 @@ export function MapView(props: MapViewProps) {
           class="dm-map"
           data-testid="map"
           data-drawn="0"
-          role="img"
-          aria-label={props.summary}
+          role="region"
+          aria-label="Map of the footprint"
         />
         <div class="dm-crosshair" aria-hidden="true" />
       </div>
+      <p class="hint dm-map-caption">{props.summary}</p>
       <div class="map-tools dm-map-tools">
         {props.onPutSource ? (
           <button
