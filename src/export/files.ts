@@ -27,17 +27,18 @@ export function footprintFileName(timeLocal: string): string {
 }
 
 /**
- * One footprint as a GeoJSON file. Needs a source position (scenario.source); null without one.
- * @param timeLocal the estimate's time stamp (ISO 8601 with offset), written into every feature
+ * The footprint collection that Share exports (and the map draws). Needs a source position
+ * (scenario.source); null without one.
+ * @param timeLocal the estimate's time stamp (ISO 8601 with offset), or null when not logged
  */
-export function footprintFile(
+export function footprintCollection(
   scenario: Scenario,
   result: EstimateOutput,
-  timeLocal: string,
-): { file: OutFile; geojson: FootprintCollection } | null {
+  timeLocal: string | null,
+): FootprintCollection | null {
   const source = scenario.source;
   if (!source) return null;
-  const geojson = footprintGeoJSON({
+  return footprintGeoJSON({
     footprint: result.footprint,
     bands: result.bands,
     source,
@@ -47,6 +48,19 @@ export function footprintFile(
     timestamp: timeLocal,
     limitSet: result.limit_set ?? scenario.limit_set ?? null,
   });
+}
+
+/**
+ * One footprint as a GeoJSON file. Needs a source position (scenario.source); null without one.
+ * @param timeLocal the estimate's time stamp (ISO 8601 with offset), written into every feature
+ */
+export function footprintFile(
+  scenario: Scenario,
+  result: EstimateOutput,
+  timeLocal: string,
+): { file: OutFile; geojson: FootprintCollection } | null {
+  const geojson = footprintCollection(scenario, result, timeLocal);
+  if (!geojson) return null;
   return {
     geojson,
     file: {

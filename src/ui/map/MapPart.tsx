@@ -7,9 +7,8 @@
 import type { Feature } from "geojson";
 import type { ComponentChildren, ComponentType } from "preact";
 import { useEffect, useMemo, useState } from "preact/hooks";
-import { CAUTION } from "../../core/caution.ts";
 import type { EstimateOutput, Scenario } from "../../core/types.ts";
-import { footprintGeoJSON } from "../../geo/geojson.ts";
+import { footprintCollection } from "../../export/files.ts";
 import {
   addMapArea,
   areaContaining,
@@ -92,17 +91,9 @@ export function MapPart(props: MapPartProps) {
 
   const data = useMemo(() => {
     if (!src) return null;
-    const shared =
-      props.output.geojson ??
-      footprintGeoJSON({
-        footprint: props.output.footprint,
-        bands: props.output.bands,
-        source: src,
-        inputs: props.scenario as unknown as Record<string, unknown>,
-        modelVersion: props.output.model_version,
-        caution: CAUTION,
-        timestamp: null,
-      });
+    // The same collection Share exports (without a time stamp until the estimate is logged).
+    const shared = footprintCollection(props.scenario, props.output, null);
+    if (!shared) return null;
     const footprint = props.extraFeatures?.length
       ? { ...shared, features: [...shared.features, ...props.extraFeatures] }
       : shared;

@@ -80,7 +80,7 @@ export interface MapViewProps {
 }
 
 export function MapView(props: MapViewProps) {
-  const box = useRef<HTMLDivElement>(null);
+  const box = useRef<HTMLElement>(null);
   const map = useRef<MapLibreMap | null>(null);
   const following = useRef(true);
   const drawn = useRef(0);
@@ -119,7 +119,7 @@ export function MapView(props: MapViewProps) {
       return;
     }
     map.current = m;
-    (el as HTMLDivElement & { driftmarkMap?: MapLibreMap }).driftmarkMap = m;
+    (el as HTMLElement & { driftmarkMap?: MapLibreMap }).driftmarkMap = m;
     m.addControl(
       new NavigationControl({ showCompass: true, showZoom: true, visualizePitch: false }),
     );
@@ -147,7 +147,7 @@ export function MapView(props: MapViewProps) {
     return () => {
       m.remove();
       map.current = null;
-      delete (el as HTMLDivElement & { driftmarkMap?: MapLibreMap }).driftmarkMap;
+      delete (el as HTMLElement & { driftmarkMap?: MapLibreMap }).driftmarkMap;
     };
   }, [props.areaKey]);
 
@@ -174,12 +174,11 @@ export function MapView(props: MapViewProps) {
   return (
     <div class="dm-map-wrap">
       <div class="dm-map-box">
-        <div
+        <section
           ref={box}
           class="dm-map"
           data-testid="map"
           data-drawn="0"
-          role="region"
           aria-label="Map of the footprint"
         />
         <div class="dm-crosshair" aria-hidden="true" />
