@@ -15,11 +15,11 @@ import {
   DeferredCentrelineChart,
   DeferredLimitSetPanel,
   DeferredLogSection,
+  DeferredMapPart,
 } from "./deferred.tsx";
 import { DEMO_SCENARIO } from "./demo.ts";
 import { type Evaluation, evaluate, readForm, settle } from "./evaluate.ts";
 import { groupProblems } from "./form.ts";
-import { FootprintArea } from "./map/FootprintArea.tsx";
 import { bandStyles } from "./palette.ts";
 import {
   initialScreen,
@@ -146,15 +146,6 @@ export function App({ makeEstimator }: AppProps = {}) {
     (s: Scenario) => dispatch({ type: "load", scenario: s, origin: "user" }),
     [],
   );
-  const putSource = useCallback(
-    (lat: number, lon: number) =>
-      dispatch({
-        type: "place",
-        lat: String(Number(lat.toFixed(6))),
-        lon: String(Number(lon.toFixed(6))),
-      }),
-    [],
-  );
   // The results and the log change only with a new estimate (or units, or a position fix), not
   // with each keystroke: keep their elements so typing re-renders the form alone.
   const stale = evaluation.stale;
@@ -169,7 +160,7 @@ export function App({ makeEstimator }: AppProps = {}) {
       last.scenario.release.kind === "continuous" && last.scenario.release.duration_s === undefined;
     return (
       <>
-        <FootprintArea
+        <DeferredMapPart
           scenario={last.scenario}
           output={last.output}
           styles={styles}
@@ -177,7 +168,7 @@ export function App({ makeEstimator }: AppProps = {}) {
           placeText={placeText}
           night={theme === "night"}
           position={positionFix}
-          onPutSource={putSource}
+          onPutSource={(lat, lon) => dispatch({ type: "place", lat, lon })}
           onFix={setPositionFix}
         />
         <Results
@@ -195,7 +186,7 @@ export function App({ makeEstimator }: AppProps = {}) {
         />
       </>
     );
-  }, [last, styles, units, theme, positionFix, putSource]);
+  }, [last, styles, units, theme, positionFix]);
   const logView = useMemo(
     () => (
       <DeferredLogSection

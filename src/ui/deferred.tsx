@@ -6,9 +6,11 @@
  */
 import type { ComponentType } from "preact";
 import { useEffect, useState } from "preact/hooks";
+import { FootprintView } from "./components/FootprintView.tsx";
 import type { ProfileChartProps } from "./components/ProfileChart.tsx";
 import type { LimitSetPanelProps } from "./limitsets/LimitSetPanel.tsx";
 import type { LogSectionProps } from "./log/LogSection.tsx";
+import type { MapPartProps } from "./map/MapPart.tsx";
 
 /** Load a component once; later calls share the same promise. */
 function once<P>(load: () => Promise<ComponentType<P>>): () => Promise<ComponentType<P>> {
@@ -27,6 +29,9 @@ export const loadCentrelineChart = once<ProfileChartProps>(() =>
 );
 export const loadLimitSetPanel = once<LimitSetPanelProps>(() =>
   import("./limitsets/LimitSetPanel.tsx").then((m) => m.LimitSetPanel),
+);
+export const loadMapPart = once<MapPartProps>(() =>
+  import("./map/MapPart.tsx").then((m) => m.MapPart),
 );
 export const loadAboutPage = once<{ onBack: () => void }>(() =>
   import("./components/AboutPage.tsx").then((m) => m.AboutPage),
@@ -72,6 +77,16 @@ export function DeferredAboutPage(props: { onBack: () => void }) {
   const C = useDeferred(loadAboutPage, false);
   if (!C) return <p role="status">Opening…</p>;
   return <C {...props} />;
+}
+
+/**
+ * The footprint area: the plain drawing first, then (when idle) the map part, which shows the map
+ * when a kept map area holds the source.
+ */
+export function DeferredMapPart(props: Omit<MapPartProps, "plain">) {
+  const C = useDeferred(loadMapPart, true);
+  const plain = <FootprintView {...props} />;
+  return C ? <C {...props} plain={plain} /> : plain;
 }
 
 /** The centreline chart, loaded once the first estimate has been drawn. */

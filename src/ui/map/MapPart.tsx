@@ -18,6 +18,7 @@ import {
   mapAreaFile,
   removeMapArea,
 } from "../../storage/map-areas.ts";
+import type { BandStyle } from "../palette.ts";
 import type { UnitSystem } from "../units.ts";
 import "./map.css";
 import { mapOverlay } from "./footprint-layers.ts";
@@ -25,15 +26,19 @@ import { formatBounds, formatBytes } from "./format.ts";
 import type { MapViewProps } from "./MapView.tsx";
 
 export interface MapPartProps {
+  /** For the plain drawing (FootprintView). */
+  styles: readonly BandStyle[];
   scenario: Scenario;
   output: EstimateOutput;
   units: UnitSystem;
   night: boolean;
-  summary: string;
+  /** Where the source is, in words (the plain drawing's caption). */
+  placeText: string;
   /** The plain (SVG) drawing, shown when there is no map to draw on. */
   plain: ComponentChildren;
   position?: { lat: number; lon: number; accuracyM: number } | null;
-  onPutSource?: (lat: number, lon: number) => void;
+  /** Puts the source at a place: latitude and longitude (degrees) as the Place fields take them. */
+  onPutSource?: (lat: string, lon: string) => void;
   onAddPlace?: (lat: number, lon: number) => void;
   /** Told of the device's position when the user asks for it on the map (shown as a dot). */
   onFix?: (fix: { lat: number; lon: number; accuracyM: number }) => void;
@@ -175,8 +180,11 @@ export function MapPart(props: MapPartProps) {
           data={data}
           estimateKey={props.output}
           night={props.night}
-          summary={props.summary}
-          onPutSource={props.onPutSource}
+          summary={`Bands of each limit over the map area, labelled at their far ends; the crosshair marks the map centre. ${props.placeText}`}
+          onPutSource={
+            props.onPutSource &&
+            ((lat, lon) => props.onPutSource?.(String(+lat.toFixed(6)), String(+lon.toFixed(6))))
+          }
           onAddPlace={props.onAddPlace}
           onShowPosition={locate}
           onFail={(reason) => setFailed(reason)}
