@@ -6,14 +6,18 @@
  *
  * Exit status:
  * - 0: the estimate was printed on stdout.
- * - 2: the input could not be used: no file given, file missing/unreadable, not JSON, or an
- *   invalid scenario (one line per problem on stderr: `field: what is allowed (got VALUE)`).
+ * - 2: the input could not be used: no file given, file missing/unreadable, too large, not JSON,
+ *   nested too deep, a text too long, a forbidden key (`__proto__`, `constructor`, `prototype`)
+ *   — one line naming the file and what is wrong — or an invalid scenario (one line per
+ *   problem on stderr: `field: what is allowed (got VALUE)`). Any input file is the user's to
+ *   fix; the file is read through src/storage/safe-json.ts.
  * - 1: an unexpected internal error (one line on stderr).
  * Nothing but the estimate ever goes to stdout, and no stack trace is ever printed.
  */
 
-import { readFileSync } from "node:fs";
+import { readFileSync, statSync } from "node:fs";
 import type { ScenarioProblem } from "../src/core/types.ts";
+import { describeSize, type JsonLimits, readJsonText } from "../src/storage/safe-json.ts";
 
 const USAGE = "usage: npm run --silent estimate -- FILE.json   (FILE.json: a Driftmark scenario)";
 
@@ -34,6 +38,16 @@ function readProblems(err: unknown): ScenarioProblem[] | null {
   if (e.name !== "ScenarioError" || !Array.isArray(e.problems)) return null;
   return e.problems as ScenarioProblem[];
 }
+
+/**
+ * What a scenario file may be: a scenario is a few hundred bytes and three levels deep; labels
+ * and notes are short.
+ */
+export const SCENARIO_FILE_LIMITS = {
+  maxChars: 1024 * 1024,
+  maxDepth: 8,
+  maxStringLength: 10_000,
+} satisfies Partial<JsonLimits>;
 
 const READ_ERRORS: Record<string, string> = {
   ENOENT: "no such file",
@@ -76,6 +90,15 @@ async function main(argv: string[]): Promise<void> {
 
   let text: string;
   try {
+    // Checked before reading, so a huge file is not read into memory (UTF-8 takes at most 3
+    // bytes per UTF-16 unit; the character count is checked again after reading).
+    const bytes = statSync(file).size;
+    if (bytes > 3 * SCENARIO_FILE_LIMITS.maxChars) {
+      fail(2, [
+        `${file}: the file is too large (${describeSize(bytes)}; at most ${describeSize(SCENARIO_FILE_LIMITS.maxChars)})`,
+      ]);
+      return;
+    }
     text = readFileSync(file, "utf8");
   } catch (err) {
     const code = (err as { code?: unknown }).code;
@@ -84,13 +107,12 @@ async function main(argv: string[]): Promise<void> {
     return;
   }
 
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text.replace(/^\uFEFF/, ""));
-  } catch (err) {
-    fail(2, [`${file}: not valid JSON: ${oneLine(err)}`]);
+  const read = readJsonText(text, SCENARIO_FILE_LIMITS);
+  if (!read.ok) {
+    fail(2, [`${file}: ${read.message}`]);
     return;
   }
+  const raw = read.value;
 
   let core: typeof import("../src/core/index.ts");
   let formatProblem: typeof import("../src/core/errors.ts").formatProblem;

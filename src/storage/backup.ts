@@ -5,8 +5,9 @@
  */
 import { CAUTION } from "../core/caution.ts";
 import { ImportFileError } from "./errors.ts";
+import { FORBIDDEN_KEYS, readJsonText } from "./safe-json.ts";
 import type { LogEntry } from "./schema.ts";
-import { depthOf, Invalid, validateEntry } from "./validate.ts";
+import { Invalid, validateEntry } from "./validate.ts";
 
 export const BACKUP_FORMAT = "driftmark-log";
 export const BACKUP_VERSION = 1;
@@ -15,6 +16,11 @@ export const MAX_BACKUP_BYTES = 20 * 1024 * 1024;
 export const MAX_BACKUP_ENTRIES = 100_000;
 /** Deepest nesting accepted anywhere in a backup (wrapper 2 + entry 20). */
 export const MAX_BACKUP_DEPTH = 24;
+/**
+ * Longest string accepted anywhere in the file; longer refuses the file. Entries' own fields are
+ * limited further (validate.ts, MAX_STRING), which rejects that entry only.
+ */
+export const MAX_BACKUP_STRING = 100_000;
 
 export interface LogBackup {
   format: typeof BACKUP_FORMAT;
@@ -61,24 +67,27 @@ export function backupFileName(now: Date): string {
  * too deep. Otherwise returns the valid entries and the rejected ones with their reasons.
  */
 export function readBackup(text: string): { entries: LogEntry[]; rejected: Rejection[] } {
-  if (typeof text !== "string") throw new ImportFileError("The file could not be read as text.");
-  if (text.length > MAX_BACKUP_BYTES) {
-    throw new ImportFileError(
-      `The file is too large (${(text.length / 1048576).toFixed(1)} MB; at most 20 MB).`,
-    );
-  }
-  let data: unknown;
-  try {
-    data = JSON.parse(text);
-  } catch {
-    throw new ImportFileError("The file is not valid JSON, so it is not a Driftmark log backup.");
-  }
+  // Size, nesting and string length are checked on the text before it is parsed, so a hostile
+  // file is refused without exhausting the stack or memory. Keys such as "__proto__" inside an
+  // entry reject that entry only (validate.ts rebuilds each entry from its known fields).
+  const read = readJsonText(text, {
+    maxChars: MAX_BACKUP_BYTES,
+    maxDepth: MAX_BACKUP_DEPTH,
+    maxStringLength: MAX_BACKUP_STRING,
+    refuseForbiddenKeys: false,
+  });
+  if (!read.ok) throw new ImportFileError(`${sentence(read.message)}.`);
+  const data = read.value;
   if (typeof data !== "object" || data === null || Array.isArray(data)) {
     throw new ImportFileError(
       'The file is not a Driftmark log backup (expected {"format": "driftmark-log", …}).',
     );
   }
   const d = data as Record<string, unknown>;
+  for (const k of Object.keys(d)) {
+    if (FORBIDDEN_KEYS.has(k))
+      throw new ImportFileError(`The key "${k}" is not allowed in a log backup.`);
+  }
   if (d.format !== BACKUP_FORMAT) {
     throw new ImportFileError(
       `The file is not a Driftmark log backup (format is ${JSON.stringify(String(d.format)).slice(0, 60)}, expected "driftmark-log").`,
@@ -97,12 +106,6 @@ export function readBackup(text: string): { entries: LogEntry[]; rejected: Rejec
       `The backup has ${d.entries.length} entries; at most ${MAX_BACKUP_ENTRIES} can be imported at once.`,
     );
   }
-  const depth = depthOf(data, MAX_BACKUP_DEPTH);
-  if (depth > MAX_BACKUP_DEPTH) {
-    throw new ImportFileError(
-      `The file is nested deeper than ${MAX_BACKUP_DEPTH} levels; it is not a log backup.`,
-    );
-  }
   const entries: LogEntry[] = [];
   const rejected: Rejection[] = [];
   d.entries.forEach((raw, index) => {
@@ -119,4 +122,9 @@ export function readBackup(text: string): { entries: LogEntry[]; rejected: Rejec
     }
   });
   return { entries, rejected };
+}
+
+/** A reader's lower-case message as the start of a sentence. */
+function sentence(message: string): string {
+  return message.charAt(0).toUpperCase() + message.slice(1);
 }

@@ -22,7 +22,7 @@ import {
 } from "../core/scenario/fields.ts";
 import type { LimitUnit } from "../core/types.ts";
 import { CsvSyntaxError, parseCsv, writeCsv } from "./csv.ts";
-import { readJsonText } from "./json-text.ts";
+import { readJsonText } from "./safe-json.ts";
 
 /** One limit of a set. The averaging time is kept in minutes, as the CSV gives it. */
 export interface LimitSetLimit {

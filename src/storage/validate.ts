@@ -5,7 +5,7 @@
  * Objects are rebuilt from the known fields only, so keys such as "__proto__" cannot reach the
  * program. Limits: strings ≤ MAX_STRING chars, nesting ≤ MAX_DEPTH; the file limits are in backup.ts.
  */
-import { ScenarioError } from "../core/errors.ts";
+import { formatProblem, ScenarioError } from "../core/errors.ts";
 import { parseScenario } from "../core/scenario.ts";
 import type { BandOutput, PointOutput, Scenario, Warning } from "../core/types.ts";
 import { STABILITY_CLASSES } from "../core/types.ts";
@@ -261,10 +261,10 @@ function scenario(v: unknown, f: string): Scenario {
     if (e instanceof ScenarioError) {
       const p = e.problems[0];
       const more = e.problems.length > 1 ? ` (and ${e.problems.length - 1} more)` : "";
-      throw new Invalid(
-        `${f}.${p?.field ?? ""}`,
-        `${p?.message ?? "is not a valid scenario"}${more}`,
-      );
+      if (p === undefined) throw new Invalid(f, "is not a valid scenario");
+      // The core's one-line form names the value found: "field: what is allowed (got VALUE)".
+      const line = formatProblem(p);
+      throw new Invalid(`${f}.${p.field}`, `${line.slice(p.field.length + 2)}${more}`);
     }
     throw new Invalid(f, "is not a valid scenario");
   }

@@ -236,6 +236,79 @@ describe.concurrent("a file or command line that cannot be used exits 2 with one
     TIMEOUT_MS,
   );
 
+  // Bad files are the user's to fix: exit 2 with one line naming the file and what is wrong,
+  // never an internal error (exit 1). Limits: SCENARIO_FILE_LIMITS in scripts/estimate.ts.
+  const scenarioWith = (extra: string) =>
+    `{"release": {"kind": "continuous", "rate_g_s": 5${extra}}, "weather": {"wind_speed_m_s": 3, "wind_from_deg": 270, "stability": "D"}, "limits": [{"label": "A", "value": 1, "unit": "mg/m3", "averaging_s": 600}]}`;
+  test.each([
+    [
+      "100,000 nested arrays",
+      "deep",
+      `${"[".repeat(100_000)}${"]".repeat(100_000)}`,
+      "the file is nested deeper than 8 levels (at line 1, column 9)",
+    ],
+    [
+      "nesting just over the limit inside a scenario",
+      "deep-9",
+      scenarioWith(`, "note": [[[[[[[[1]]]]]]]]`),
+      "the file is nested deeper than 8 levels",
+    ],
+    [
+      'a "__proto__" key',
+      "proto",
+      scenarioWith(`, "__proto__": {"polluted": true}`),
+      'the key "__proto__" is not allowed (in release)',
+    ],
+    [
+      'a "constructor" key',
+      "constructor",
+      scenarioWith(`, "constructor": {"prototype": {}}`),
+      'the key "constructor" is not allowed (in release)',
+    ],
+    [
+      "a string of a megabyte",
+      "long-string",
+      scenarioWith(`, "note": "${"x".repeat(1_000_000)}"`),
+      "the file holds a text of 1000000 characters at line 1, column 59; at most 10000",
+    ],
+    [
+      "a string over 10,000 characters",
+      "long-label",
+      scenarioWith(`, "note": "${"x".repeat(10_001)}"`),
+      "the file holds a text of 10001 characters at line 1, column 59; at most 10000",
+    ],
+    [
+      "a file over 4 MB",
+      "huge",
+      `[${"0,".repeat(2 * 1024 * 1024)}0]`,
+      "the file is too large (4.0 MB; at most 1.0 MB)",
+    ],
+  ])(
+    "%s",
+    async (_name, caseName, text, message) => {
+      const file = writeCase(caseName, text);
+      const r = await run([file]);
+      expect(r.status).toBe(2);
+      const lines = expectCleanFailure(r);
+      expect(lines).toHaveLength(1);
+      expect(lines[0]).toContain(`${file}: ${message}`);
+    },
+    TIMEOUT_MS,
+  );
+
+  test(
+    "a number written as a string is named with its field",
+    async () => {
+      const text = scenarioWith("").replace('"rate_g_s": 5', '"rate_g_s": "500"');
+      const r = await run([writeCase("number-as-string", text)]);
+      expect(r.status).toBe(2);
+      const lines = expectCleanFailure(r);
+      expect(lines).toHaveLength(1);
+      expect(lines[0]).toMatch(/^release\.rate_g_s: .*without quotes.*\(got "500"\)$/);
+    },
+    TIMEOUT_MS,
+  );
+
   test(
     "a missing file",
     async () => {

@@ -88,6 +88,20 @@ describe("importing a backup", () => {
       [{ ...base, note: 7 }, /^note: must be text/],
       [{ ...base, note: "x".repeat(10_001) }, /^note: must be at most 10000 characters/],
       [
+        { ...base, place: { lat: "47", lon: 8, accuracy_m: null } },
+        /^place\.lat: must be a finite number \(got "47"\)/,
+      ],
+      [
+        {
+          ...base,
+          scenario: {
+            ...base.scenario,
+            weather: { ...base.scenario.weather, wind_speed_m_s: "3" },
+          },
+        },
+        /^scenario\.weather\.wind_speed_m_s: .*without quotes.*\(got "3"\)/,
+      ],
+      [
         { ...base, scenario: { ...base.scenario, weather: { wind_speed_m_s: -3 } } },
         /^scenario\.weather/,
       ],
@@ -132,6 +146,22 @@ describe("importing a backup", () => {
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   });
 
+  it('rejects an entry with a "constructor" key, naming where, and adds the others', async () => {
+    const s = await store();
+    const good = entryAt(T0, "good");
+    const text = file([entryAt(T0 + 1000), good]).replace(
+      '"release":{',
+      '"release":{"constructor":{"prototype":{"polluted":true}},',
+    );
+    const summary = await s.importBackup(text);
+    expect(summary.added).toBe(1);
+    expect(summary.rejected).toHaveLength(1);
+    expect(summary.rejected[0]?.reason).toMatch(
+      /^scenario\.release\.constructor: is not an allowed key/,
+    );
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+  });
+
   describe("a file that cannot be a backup changes nothing", () => {
     async function refused(text: string, message: RegExp): Promise<void> {
       const s = await store();
@@ -162,7 +192,17 @@ describe("importing a backup", () => {
     it("deeply nested (100,000 levels)", () =>
       refused(
         `{"format":"driftmark-log","version":1,"entries":[${"[".repeat(100_000)}${"]".repeat(100_000)}]}`,
-        /nested deeper|not valid JSON/,
+        /^The file is nested deeper than 24 levels \(at line 1, column 72\)\.$/,
+      ));
+    it("a string of a megabyte", () =>
+      refused(
+        file([entryAt(T0, "x".repeat(1024 * 1024))]),
+        /^The file holds a text of 1048576 characters at line 1, column \d+; at most 100000\.$/,
+      ));
+    it('a "__proto__" key on the wrapper', () =>
+      refused(
+        file([entryAt(T0)]).replace("{", '{"__proto__":{"polluted":true},'),
+        /^The key "__proto__" is not allowed in a log backup\.$/,
       ));
     it("nested a little too deep inside an otherwise good entry", async () => {
       const e = entryAt(T0) as unknown as { scenario: Record<string, unknown> };
