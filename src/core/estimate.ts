@@ -7,10 +7,11 @@
  */
 import { CAUTION, MODEL_VERSION } from "./caution.ts";
 import { type BandSolution, solveBand } from "./footprint.ts";
-import { makePlume, type Plume } from "./plume.ts";
-import { plumeRise } from "./rise.ts";
+import type { Plume } from "./plume.ts";
 import { parseScenario } from "./scenario.ts";
+import { plumeCache, setupFor } from "./setup.ts";
 import { CURVE_RANGE_M } from "./sigma.ts";
+import { solveSpread } from "./spread.ts";
 import { suggestStability } from "./stability.ts";
 import { cloudPassage, passageAt } from "./timing.ts";
 import type {
@@ -26,7 +27,6 @@ import type {
   WarningCode,
 } from "./types.ts";
 import { mgM3ToPpm, ppmToMgM3 } from "./units.ts";
-import { windAtHeight } from "./wind.ts";
 
 /** Molecular weight of dry air (g/mol); heavier gases raise the dense-gas caution. */
 export const AIR_MOLECULAR_WEIGHT = 29;
@@ -70,18 +70,12 @@ export function prepare(raw: unknown): Prepared {
     stabilityReason = `Given: class ${stability}`;
   }
 
-  const wind = windAtHeight(
-    parsed.windSpeedRef,
-    parsed.windRefHeight,
-    parsed.height,
-    stability,
-    parsed.terrain,
-  );
-  if (wind.calm) {
+  const { setup, calm, powerLaw } = setupFor(parsed, stability, parsed.windSpeedRef);
+  if (calm) {
     warn(
       warnings,
       "calm-wind",
-      `Wind at release height is ${fmt(wind.powerLaw)} m/s, under 1 m/s: the model computes with 1 m/s, ` +
+      `Wind at release height is ${fmt(powerLaw)} m/s, under 1 m/s: the model computes with 1 m/s, ` +
         "but a Gaussian plume does not describe calms. The cloud may pool and spread in any direction.",
     );
   }
@@ -106,17 +100,6 @@ export function prepare(raw: unknown): Prepared {
     );
   }
 
-  const rise = parsed.hot ? plumeRise(parsed.hot, parsed.airTemperature, wind.used, stability) : 0;
-  const setup: PlumeSetup = {
-    release: parsed.release,
-    height: parsed.height,
-    windSpeed: wind.used,
-    stability,
-    terrain: parsed.terrain,
-    scheme: parsed.scheme,
-    mixingHeight: parsed.mixingHeight,
-    effectiveHeight: parsed.height + rise,
-  };
   if (setup.mixingHeight !== null && setup.effectiveHeight > setup.mixingHeight) {
     warn(
       warnings,
@@ -132,23 +115,26 @@ export function prepare(raw: unknown): Prepared {
     averaging: l.averaging,
   }));
 
-  const cache = new Map<number, Plume>();
-  const plume = (averaging: number): Plume => {
-    let p = cache.get(averaging);
-    if (!p) {
-      p = makePlume(setup, averaging);
-      cache.set(averaging, p);
-    }
-    return p;
-  };
-  return { parsed, setup, stabilityReason, limits, warnings, plume };
+  return { parsed, setup, stabilityReason, limits, warnings, plume: plumeCache(setup) };
+}
+
+export interface LocalOptions {
+  /**
+   * Also solve the spread (every band under neighbouring classes × wind ÷ and × the factor;
+   * up to nine times the work). Default false here; `estimate` in index.ts defaults it to true.
+   */
+  spread?: boolean;
 }
 
 /**
- * Every figure of the estimate for a scenario (see types.ts `Scenario`), without GeoJSON.
+ * Every figure of the estimate for a scenario (see types.ts `Scenario`), without GeoJSON; with
+ * `{ spread: true }` also each band's spread, its envelope and the spread's summary.
  * Throws `ScenarioError` listing every problem when the scenario is not valid.
  */
-export function estimateLocal(scenario: Scenario | unknown): EstimateOutput {
+export function estimateLocal(
+  scenario: Scenario | unknown,
+  options: LocalOptions = {},
+): EstimateOutput {
   const prep = prepare(scenario);
   const { parsed, setup, warnings } = prep;
   const zr = parsed.receptorHeight;
@@ -223,7 +209,30 @@ export function estimateLocal(scenario: Scenario | unknown): EstimateOutput {
     ...(parsed.limitSet ? { limit_set: { ...parsed.limitSet } } : {}),
     footprint,
   };
+  if (options.spread === true) addSpread(out, prep, solutions);
   return out;
+}
+
+/** Adds the spread to `out`: per band figures, envelopes, summary, calm warning. */
+function addSpread(out: EstimateOutput, prep: Prepared, solutions: BandSolution[]): void {
+  const spread = solveSpread(prep, solutions);
+  out.bands.forEach((b, i) => {
+    b.spread = spread.bands[i];
+  });
+  out.footprint.bands.forEach((lb, i) => {
+    lb.envelope = spread.envelopes[i] ?? [];
+  });
+  out.spread = spread.summary;
+  const calm = spread.variants.filter((v) => v.calm).map((v) => v.variant);
+  if (calm.length > 0 && !out.warnings.some((w) => w.code === "calm-wind")) {
+    const which = calm.map((v) => `class ${v.stability} at ${fmt(v.wind_speed_m_s)} m/s`);
+    warn(
+      out.warnings,
+      "spread-calm-wind",
+      `Spread: with ${which.join(", ")} the wind at release height is under 1 m/s; those ` +
+        "weathers are computed with 1 m/s, but a Gaussian plume does not describe calms.",
+    );
+  }
 }
 
 /**

@@ -18,7 +18,13 @@
 import { ScenarioError } from "./errors.ts";
 import { KEYS } from "./scenario/fields.ts";
 import { checkAcross, readLimits, readPoints } from "./scenario/lists.ts";
-import { readLimitSet, readMolecularWeight, readOptions, readSource } from "./scenario/options.ts";
+import {
+  readLimitSet,
+  readMolecularWeight,
+  readOptions,
+  readSource,
+  readSpread,
+} from "./scenario/options.ts";
 import { isObject, type Maybe, Reader } from "./scenario/read.ts";
 import { readRelease } from "./scenario/release.ts";
 import { readWeather } from "./scenario/weather.ts";
@@ -90,6 +96,7 @@ export function parseScenario(raw: unknown): ParsedScenario {
   const source = readSource(rd, raw);
   const points = readPoints(rd, raw, options.receptorHeight);
   const limitSet = readLimitSet(rd, raw);
+  const spread = readSpread(rd, raw);
   checkAcross(rd, raw, limits, mixingHeight, options.receptorHeight);
 
   if (rd.problems.length > 0) throw new ScenarioError(rd.problems);
@@ -102,5 +109,6 @@ export function parseScenario(raw: unknown): ParsedScenario {
     source,
     points,
     limitSet,
+    spread,
   });
 }

@@ -87,6 +87,14 @@ export interface ScenarioPoint {
   averaging_s?: number;
 }
 
+/** How far the weather is varied for the spread (glossary: Spread). */
+export interface ScenarioSpread {
+  /** Stability classes stepped each way: 0 (this class only) or 1 (one less and one more stable). */
+  classes?: number;
+  /** The measured wind is divided and multiplied by this (1 = not varied). */
+  wind_factor?: number;
+}
+
 export interface Scenario {
   release: ScenarioContinuousRelease | ScenarioInstantaneousRelease;
   weather: ScenarioWeather;
@@ -100,6 +108,8 @@ export interface Scenario {
   points?: ScenarioPoint[];
   /** The limit set (glossary) the limits were filled from, recorded with the estimate. */
   limit_set?: ScenarioLimitSet;
+  /** Default `{ classes: 1, wind_factor: 1.3 }`; `{ classes: 0, wind_factor: 1 }` turns it off. */
+  spread?: ScenarioSpread;
 }
 
 /** Which limit set was used: its name and where its values come from (free text). */
@@ -132,7 +142,8 @@ export type WarningCode =
   | "split-class"
   | "night-by-clock"
   | "near-zone-only"
-  | "upwind-point";
+  | "upwind-point"
+  | "spread-calm-wind";
 
 export interface BandOutput {
   label: string;
@@ -150,6 +161,44 @@ export interface BandOutput {
   /** When the hazard arrives at / clears the band's far end (reach, 0), s from release start. */
   arrives_s: number | null;
   clears_s: number | null;
+  /** The same band under the weather's spread; absent only when the spread was not computed. */
+  spread?: BandSpread;
+}
+
+/** One weather of the spread: a stability class and a measured wind speed. */
+export interface SpreadVariant {
+  stability: StabilityClass;
+  /** Measured wind speed (m/s) at the scenario's wind height (before the calm clamp). */
+  wind_speed_m_s: number;
+}
+
+/**
+ * A band under the weather's spread: every variant (neighbouring classes × wind ÷ and × the
+ * factor, the estimate itself included). Reaches are null where a variant gives no band.
+ */
+export interface BandSpread {
+  /** Shortest reach of any variant (m); null when some variant gives no band at all. */
+  reach_min_m: number | null;
+  /** Longest reach of any variant (m); null when no variant gives a band. */
+  reach_max_m: number | null;
+  /** Widest crosswind extent of any variant (m), swing included; null when no band. */
+  width_max_m: number | null;
+  /** Largest ground area of any variant (m²), swing included; null when no band. */
+  area_max_m2: number | null;
+  /** The variants giving the shortest and the longest reach, and the widest band. */
+  reach_min_variant: SpreadVariant;
+  reach_max_variant: SpreadVariant;
+  widest_variant: SpreadVariant;
+}
+
+/** Which weathers the spread took (output summary). */
+export interface SpreadSummary {
+  /** The classes crossed, least stable first. */
+  classes: StabilityClass[];
+  /** The measured wind speeds crossed (m/s), slowest first. */
+  wind_speeds_m_s: number[];
+  /** Number of distinct variants solved, the estimate itself included. */
+  variants: number;
 }
 
 export interface PointLimitOutput {
@@ -185,6 +234,8 @@ export interface EstimateOutput {
   limit_set?: ScenarioLimitSet;
   /** Local footprint geometry (x downwind, y left, metres) for drawing without a place. */
   footprint: LocalFootprint;
+  /** The weathers of the spread; absent only when the spread was not computed. */
+  spread?: SpreadSummary;
   /** Present when `source` is given: RFC 7946 FeatureCollection. */
   geojson?: import("geojson").FeatureCollection;
 }
@@ -202,6 +253,11 @@ export interface LocalBand {
   outline: LocalRing;
   /** Band outline swept through ±wind swing (equals `outline` when swing is 0). */
   swept: LocalRing;
+  /**
+   * Outer envelope of the band under the weather's spread (swing included; contains every
+   * variant's swept band). Absent when the spread was not computed; empty when no band.
+   */
+  envelope?: LocalRing;
 }
 
 export interface LocalFootprint {
@@ -285,6 +341,8 @@ export interface ParsedScenario {
   points: { x: number; y: number; z: number; averaging: number }[];
   /** The limit set the limits came from; null when not given. */
   limitSet: ScenarioLimitSet | null;
+  /** Spread: classes stepped each way (0 or 1) and the wind factor (≥ 1). */
+  spread: { classes: number; windFactor: number };
 }
 
 /** One problem with a scenario: the field (dotted path), the value found, and what is allowed. */

@@ -25,6 +25,7 @@ import {
   CENTRELINE_STYLE,
   NEAR_ZONE_STYLE,
   SOURCE_COLOUR,
+  SPREAD_STYLE,
 } from "./palette.ts";
 
 // WGS 84 ellipsoid (NIMA TR8350.2, 2000): semi-major axis (m) and flattening.
@@ -249,7 +250,7 @@ export interface FootprintCollection extends FeatureCollection {
   limit_set?: { name: string; source_note: string };
 }
 
-export type FeatureKind = "source" | "band" | "near-zone" | "centreline";
+export type FeatureKind = "source" | "spread" | "band" | "near-zone" | "centreline";
 
 function localRingToUnwrapped(
   ring: LocalRing,
@@ -260,7 +261,9 @@ function localRingToUnwrapped(
 }
 
 /**
- * The footprint as an RFC 7946 FeatureCollection: the source Point, one Polygon per band (from the
+ * The footprint as an RFC 7946 FeatureCollection: the source Point, one Polygon per band's spread
+ * envelope (`kind: "spread"`, when the spread was solved; unfilled, before the bands so that they
+ * are drawn over it), one Polygon per band (from the
  * swept outline; bands without exceedance are left out), the near-zone Polygon and the downwind
  * centreline. Exterior rings are counter-clockwise; shapes crossing the antimeridian are cut in
  * two (MultiPolygon / MultiLineString). Each feature carries `kind`, the common fields (inputs,
@@ -299,13 +302,44 @@ export function footprintGeoJSON(args: FootprintGeoJSONArgs): FootprintCollectio
   const order = bands
     .map((b, i) => ({ b, i }))
     .sort((p, q) => p.b.limit_mg_m3 - q.b.limit_mg_m3 || p.i - q.i);
-  for (const { b, i } of order) {
-    // Same index as in `bands`; fall back to the label if the two lists are ever out of step.
+  // Same index as in `bands`; fall back to the label if the two lists are ever out of step.
+  const localOf = (b: BandOutput, i: number) => {
     const byIndex = footprint.bands[i];
-    const local =
-      byIndex?.label === b.label
-        ? byIndex
-        : (footprint.bands.find((lb) => lb.label === b.label) ?? byIndex);
+    return byIndex?.label === b.label
+      ? byIndex
+      : (footprint.bands.find((lb) => lb.label === b.label) ?? byIndex);
+  };
+  for (const { b, i } of order) {
+    const envelope = localOf(b, i)?.envelope;
+    if (!envelope || envelope.length < 3 || !b.spread) continue;
+    const geometry = ringGeometry(localRingToUnwrapped(envelope, source, heading));
+    if (!geometry) continue;
+    const s = b.spread;
+    features.push({
+      type: "Feature",
+      geometry,
+      properties: {
+        kind: "spread" satisfies FeatureKind,
+        name: `${b.label}: spread`,
+        label: b.label,
+        limit_mg_m3: b.limit_mg_m3,
+        averaging_s: b.averaging_s,
+        reach_min_m: s.reach_min_m,
+        reach_max_m: s.reach_max_m,
+        width_max_m: s.width_max_m,
+        area_max_m2: s.area_max_m2,
+        reach_min_variant: s.reach_min_variant,
+        reach_max_variant: s.reach_max_variant,
+        widest_variant: s.widest_variant,
+        wind_swing_deg: footprint.wind_swing_deg,
+        ...common,
+        stroke: colours[i] as string,
+        ...SPREAD_STYLE,
+      },
+    });
+  }
+  for (const { b, i } of order) {
+    const local = localOf(b, i);
     if (!local || local.swept.length < 3) continue;
     const geometry = ringGeometry(localRingToUnwrapped(local.swept, source, heading));
     if (!geometry) continue;

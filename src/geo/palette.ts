@@ -35,6 +35,14 @@ export const CENTRELINE_STYLE = { stroke: "#000000", "stroke-width": 1.5 } as co
 
 /** Fill opacity of band polygons: low enough that overlapping bands stay readable. */
 export const BAND_FILL_OPACITY = 0.35;
+/** The spread's envelope: the band's colour, unfilled, thinner and dashed (simplestyle has no dash). */
+export const SPREAD_STYLE = {
+  "stroke-width": 1,
+  "stroke-opacity": 0.6,
+  "fill-opacity": 0,
+} as const;
+/** Dash pattern of the spread's envelope on screen (SVG stroke-dasharray, px). */
+export const SPREAD_DASH = "2 4";
 
 /** The ramp is used only up to this point so that the lightest band still shows on a pale map. */
 const RAMP_END = 0.85;

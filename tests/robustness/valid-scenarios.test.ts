@@ -7,6 +7,8 @@
  *   to 3 points — about a minute on this 2-core machine;
  * - with the cheapest settings (1 limit, no wind swing, no source, at most one point), which
  *   reaches the corners of the single-band input space more densely in a quarter of the time.
+ * Both run the main bands alone (`spread: false`); a third run of 300 across the whole space adds
+ * the spread (nine weathers per band), whose figures must be finite too.
  * The seed is the suite's (tests/support/fast-check.ts) so a failure can be replayed; fast-check
  * prints the shrunk counterexample.
  */
@@ -25,7 +27,7 @@ describe("every valid scenario gives finite figures and model.md's warnings, nev
         fc.property(
           validScenario({ maxLimits: 1, swing: false, source: false, maxPoints: 1 }),
           (s) => {
-            expectSoundEstimate(s, estimate(s));
+            expectSoundEstimate(s, estimate(s, { spread: false }));
           },
         ),
         runs(10_000),
@@ -41,12 +43,37 @@ describe("every valid scenario gives finite figures and model.md's warnings, nev
         fc.property(
           validScenario({ maxLimits: 5, swing: true, source: true, maxPoints: 3 }),
           (s) => {
-            const out = estimate(s);
+            const out = estimate(s, { spread: false });
             expectSoundEstimate(s, out);
             expect(out.geojson === undefined).toBe(s.source === undefined);
           },
         ),
         runs(10_000),
+      );
+    },
+    timeout(300_000),
+  );
+
+  test(
+    "300 scenarios across the whole space with the spread (nine weathers per band)",
+    () => {
+      fc.assert(
+        fc.property(
+          validScenario({ maxLimits: 3, swing: true, source: true, maxPoints: 1 }),
+          (s) => {
+            const out = estimate(s);
+            expectSoundEstimate(s, out);
+            for (const b of out.bands) {
+              const sp = b.spread;
+              expect(sp).toBeDefined();
+              if (b.reach_m !== null && sp) {
+                if (sp.reach_min_m !== null) expect(sp.reach_min_m).toBeLessThanOrEqual(b.reach_m);
+                expect(sp.reach_max_m as number).toBeGreaterThanOrEqual(b.reach_m);
+              }
+            }
+          },
+        ),
+        runs(300),
       );
     },
     timeout(300_000),

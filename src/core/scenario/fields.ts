@@ -42,6 +42,8 @@
  * | points[i].averaging_s | [1, 86400] s | 600 |
  * | limit_set.name | text of 1 to 120 characters (not blank) | whole `limit_set` absent = none |
  * | limit_set.source_note | text of 0 to 1000 characters | required with `limit_set` |
+ * | spread.classes | 0 or 1 (classes stepped each way) | 1 |
+ * | spread.wind_factor | [1, 3] (wind ÷ and × it; 1 = off) | 1.3 |
  */
 
 import { TABLE_SKIES } from "../stability.ts";
@@ -80,6 +82,7 @@ export const RANGES = {
   x_m: r(-1e6, 1e6, "m"),
   y_m: r(-1e6, 1e6, "m"),
   z_m: r(0, 1000, "m"),
+  spread_wind_factor: r(1, 3, ""),
 } as const satisfies Record<string, NumberRange>;
 
 /** Defaults from model.md ("Inputs") and issue 2. */
@@ -93,6 +96,8 @@ export const DEFAULTS = {
   wind_swing_deg: 0,
   near_zone_m: 100,
   point_averaging_s: 600,
+  spread_classes: 1,
+  spread_wind_factor: 1.3,
 } as const;
 
 export const MAX_LIMITS = 100;
@@ -122,6 +127,7 @@ export const KEYS = {
     "source",
     "points",
     "limit_set",
+    "spread",
   ],
   continuous: ["kind", "rate_g_s", "duration_s", "height_m", "heavy_or_cold", "hot"],
   instantaneous: ["kind", "mass_g", "height_m", "heavy_or_cold", "hot"],
@@ -141,4 +147,5 @@ export const KEYS = {
   point: ["x_m", "y_m", "z_m", "averaging_s"],
   source: ["lat", "lon"],
   limitSet: ["name", "source_note"],
+  spread: ["classes", "wind_factor"],
 } as const;
