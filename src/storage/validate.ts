@@ -7,7 +7,14 @@
  */
 import { formatProblem, ScenarioError } from "../core/errors.ts";
 import { parseScenario } from "../core/scenario.ts";
-import type { BandOutput, PointOutput, Scenario, Warning } from "../core/types.ts";
+import type {
+  BandOutput,
+  BandSpread,
+  PointOutput,
+  Scenario,
+  SpreadVariant,
+  Warning,
+} from "../core/types.ts";
 import { STABILITY_CLASSES } from "../core/types.ts";
 import type { LogEntry, LoggedResults, Place } from "./schema.ts";
 
@@ -151,7 +158,42 @@ const BAND_KEYS = [
   "area_m2",
   "arrives_s",
   "clears_s",
+  "spread",
 ] as const;
+
+const SPREAD_KEYS = [
+  "reach_min_m",
+  "reach_max_m",
+  "width_max_m",
+  "area_max_m2",
+  "reach_min_variant",
+  "reach_max_variant",
+  "widest_variant",
+] as const;
+
+function variant(v: unknown, f: string): SpreadVariant {
+  const o = obj(v, f, ["stability", "wind_speed_m_s"]);
+  if (!STABILITY_CLASSES.includes(o.stability as never)) {
+    throw new Invalid(`${f}.stability`, `must be one of A–F (got ${shown(o.stability)})`);
+  }
+  return {
+    stability: o.stability as SpreadVariant["stability"],
+    wind_speed_m_s: num(o.wind_speed_m_s, `${f}.wind_speed_m_s`, 0),
+  };
+}
+
+function bandSpread(v: unknown, f: string): BandSpread {
+  const o = obj(v, f, SPREAD_KEYS);
+  return {
+    reach_min_m: numOrNull(o.reach_min_m, `${f}.reach_min_m`, 0),
+    reach_max_m: numOrNull(o.reach_max_m, `${f}.reach_max_m`, 0),
+    width_max_m: numOrNull(o.width_max_m, `${f}.width_max_m`, 0),
+    area_max_m2: numOrNull(o.area_max_m2, `${f}.area_max_m2`, 0),
+    reach_min_variant: variant(o.reach_min_variant, `${f}.reach_min_variant`),
+    reach_max_variant: variant(o.reach_max_variant, `${f}.reach_max_variant`),
+    widest_variant: variant(o.widest_variant, `${f}.widest_variant`),
+  };
+}
 
 const RESULT_KEYS = [
   "model_version",
@@ -168,7 +210,7 @@ const RESULT_KEYS = [
 
 function band(v: unknown, f: string): BandOutput {
   const o = obj(v, f, BAND_KEYS);
-  return {
+  const out: BandOutput = {
     label: str(o.label, `${f}.label`, 0, 200),
     limit_mg_m3: num(o.limit_mg_m3, `${f}.limit_mg_m3`, 0),
     averaging_s: num(o.averaging_s, `${f}.averaging_s`, 0),
@@ -180,6 +222,8 @@ function band(v: unknown, f: string): BandOutput {
     arrives_s: numOrNull(o.arrives_s, `${f}.arrives_s`, 0),
     clears_s: numOrNull(o.clears_s, `${f}.clears_s`, 0),
   };
+  if (o.spread !== undefined) out.spread = bandSpread(o.spread, `${f}.spread`);
+  return out;
 }
 
 function warning(v: unknown, f: string): Warning {

@@ -110,7 +110,7 @@ describe("estimate over random valid scenarios", () => {
   it("never gives NaN or ±Infinity in any figure", () => {
     fc.assert(
       fc.property(scenarioArb, (s) => {
-        expect(allFinite(estimate(s, { geojson: false }))).toBeNull();
+        expect(allFinite(estimate(s, { geojson: false, spread: false }))).toBeNull();
       }),
       runs(150),
     );
@@ -123,7 +123,7 @@ describe("estimate over random valid scenarios", () => {
         fc.double({ min: -80, max: 80, noNaN: true }),
         fc.double({ min: -180, max: 180, noNaN: true }),
         (s, lat, lon) => {
-          const o = estimate({ ...s, source: { lat, lon } });
+          const o = estimate({ ...s, source: { lat, lon } }, { spread: false });
           expect(o.geojson?.type).toBe("FeatureCollection");
           expect(allFinite(o)).toBeNull();
         },
@@ -141,7 +141,7 @@ describe("estimate over random valid scenarios", () => {
         (s, l, k) => {
           const o = estimate(
             { ...s, limits: [l, { ...l, label: "higher", value: l.value * k }] },
-            { geojson: false },
+            { geojson: false, spread: false },
           );
           const lo = reachOf(o, 0);
           const hi = reachOf(o, 1);
@@ -161,8 +161,8 @@ describe("estimate over random valid scenarios", () => {
           rel.kind === "continuous"
             ? { ...rel, rate_g_s: rel.rate_g_s * k }
             : { ...rel, mass_g: rel.mass_g * k };
-        const a = estimate(s, { geojson: false });
-        const b = estimate({ ...s, release: more }, { geojson: false });
+        const a = estimate(s, { geojson: false, spread: false });
+        const b = estimate({ ...s, release: more }, { geojson: false, spread: false });
         a.bands.forEach((band, i) => {
           const r1 = band.reach_m;
           const r2 = reachOf(b, i);
@@ -191,7 +191,7 @@ describe("estimate over random valid scenarios", () => {
                 { x_m: x, y_m: -y },
               ],
             },
-            { geojson: false },
+            { geojson: false, spread: false },
           );
           const [p, q] = o.points;
           expect(p?.concentration_mg_m3).toBe(q?.concentration_mg_m3);
@@ -225,7 +225,8 @@ describe("warnings raised where model.md says", () => {
     limits: [{ label: "L", value: 10, unit: "mg/m3", averaging_s: 600 }],
     ...over,
   });
-  const codes = (s: Scenario) => estimate(s, { geojson: false }).warnings.map((w) => w.code);
+  const codes = (s: Scenario) =>
+    estimate(s, { geojson: false, spread: false }).warnings.map((w) => w.code);
 
   it("none of the optional warnings for a plain neutral case", () => {
     const c = codes(base());
@@ -265,7 +266,7 @@ describe("warnings raised where model.md says", () => {
       { release: { kind: "continuous", rate_g_s: 100, height_m: 300 } },
       { mixing_height_m: 200 },
     );
-    const o = estimate(s, { geojson: false });
+    const o = estimate(s, { geojson: false, spread: false });
     expect(o.warnings.map((w) => w.code)).toContain("above-lid");
     expect(o.bands[0]?.reach_m).toBeNull();
   });
@@ -278,20 +279,26 @@ describe("warnings raised where model.md says", () => {
       },
       { stability: "F", wind_speed_m_s: 2 },
     );
-    const o = estimate(s, { geojson: false });
+    const o = estimate(s, { geojson: false, spread: false });
     expect(o.bands[0]?.reach_m).toBe(100_000);
     expect(o.warnings.map((w) => w.code)).toContain("reach-over-100km");
   });
 
   it("outside the 100 m – 10 km range of the curves, below and above", () => {
     const short = base({ release: { kind: "continuous", rate_g_s: 1 } });
-    expect(estimate(short, { geojson: false }).bands[0]?.reach_m as number).toBeLessThan(100);
+    expect(
+      estimate(short, { geojson: false, spread: false }).bands[0]?.reach_m as number,
+    ).toBeLessThan(100);
     expect(codes(short)).toContain("outside-curve-range");
     const long = base({ limits: [{ label: "L", value: 0.01, unit: "mg/m3", averaging_s: 600 }] });
-    expect(estimate(long, { geojson: false }).bands[0]?.reach_m as number).toBeGreaterThan(10_000);
+    expect(
+      estimate(long, { geojson: false, spread: false }).bands[0]?.reach_m as number,
+    ).toBeGreaterThan(10_000);
     expect(codes(long)).toContain("outside-curve-range");
     expect(codes(base())).not.toContain("outside-curve-range"); // reach in range
-    expect(estimate(base(), { geojson: false }).bands[0]?.reach_m as number).toBeGreaterThan(100);
+    expect(
+      estimate(base(), { geojson: false, spread: false }).bands[0]?.reach_m as number,
+    ).toBeGreaterThan(100);
   });
 
   it("averaging clamps: t_s outside 180–3600 s", () => {
@@ -317,7 +324,10 @@ describe("warnings raised where model.md says", () => {
   });
 
   it("every warning has a stable code and a plain-language message", () => {
-    const o = estimate(base({}, { wind_speed_m_s: 0.5, stability: "F" }), { geojson: false });
+    const o = estimate(base({}, { wind_speed_m_s: 0.5, stability: "F" }), {
+      geojson: false,
+      spread: false,
+    });
     expect(o.warnings.length).toBeGreaterThan(1);
     for (const w of o.warnings) {
       expect(w.code).toMatch(/^[a-z0-9-]+$/);
