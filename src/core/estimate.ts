@@ -11,7 +11,6 @@ import type { Plume } from "./plume.ts";
 import { parseScenario } from "./scenario.ts";
 import { plumeCache, setupFor } from "./setup.ts";
 import { CURVE_RANGE_M } from "./sigma.ts";
-import { solveSpread } from "./spread.ts";
 import { suggestStability } from "./stability.ts";
 import { cloudPassage, passageAt } from "./timing.ts";
 import type {
@@ -118,23 +117,21 @@ export function prepare(raw: unknown): Prepared {
   return { parsed, setup, stabilityReason, limits, warnings, plume: plumeCache(setup) };
 }
 
-export interface LocalOptions {
-  /**
-   * Also solve the spread (every band under neighbouring classes × wind ÷ and × the factor;
-   * up to nine times the work). Default false here; `estimate` in index.ts defaults it to true.
-   */
-  spread?: boolean;
-}
-
 /**
- * Every figure of the estimate for a scenario (see types.ts `Scenario`), without GeoJSON; with
- * `{ spread: true }` also each band's spread, its envelope and the spread's summary.
+ * Every figure of the estimate for a scenario (see types.ts `Scenario`), without GeoJSON and
+ * without the spread (spread.ts `addSpread` adds it; `estimate` in index.ts does so by default).
  * Throws `ScenarioError` listing every problem when the scenario is not valid.
  */
-export function estimateLocal(
-  scenario: Scenario | unknown,
-  options: LocalOptions = {},
-): EstimateOutput {
+export function estimateLocal(scenario: Scenario | unknown): EstimateOutput {
+  return solveLocal(scenario).out;
+}
+
+/** `estimateLocal`'s output with what it was solved from: the prepared scenario and the bands. */
+export function solveLocal(scenario: Scenario | unknown): {
+  out: EstimateOutput;
+  prep: Prepared;
+  solutions: BandSolution[];
+} {
   const prep = prepare(scenario);
   const { parsed, setup, warnings } = prep;
   const zr = parsed.receptorHeight;
@@ -209,30 +206,7 @@ export function estimateLocal(
     ...(parsed.limitSet ? { limit_set: { ...parsed.limitSet } } : {}),
     footprint,
   };
-  if (options.spread === true) addSpread(out, prep, solutions);
-  return out;
-}
-
-/** Adds the spread to `out`: per band figures, envelopes, summary, calm warning. */
-function addSpread(out: EstimateOutput, prep: Prepared, solutions: BandSolution[]): void {
-  const spread = solveSpread(prep, solutions);
-  out.bands.forEach((b, i) => {
-    b.spread = spread.bands[i];
-  });
-  out.footprint.bands.forEach((lb, i) => {
-    lb.envelope = spread.envelopes[i] ?? [];
-  });
-  out.spread = spread.summary;
-  const calm = spread.variants.filter((v) => v.calm).map((v) => v.variant);
-  if (calm.length > 0 && !out.warnings.some((w) => w.code === "calm-wind")) {
-    const which = calm.map((v) => `class ${v.stability} at ${fmt(v.wind_speed_m_s)} m/s`);
-    warn(
-      out.warnings,
-      "spread-calm-wind",
-      `Spread: with ${which.join(", ")} the wind at release height is under 1 m/s; those ` +
-        "weathers are computed with 1 m/s, but a Gaussian plume does not describe calms.",
-    );
-  }
+  return { out, prep, solutions };
 }
 
 /**
@@ -330,7 +304,7 @@ function pointWarnings(warnings: Warning[], i: number, x: number): void {
   }
 }
 
-function warn(
+export function warn(
   list: Warning[],
   code: WarningCode,
   message: string,
@@ -346,7 +320,7 @@ function warn(
 }
 
 /** A number for a message: whole above 100, else three significant digits, no trailing zeros. */
-function fmt(v: number): string {
+export function fmt(v: number): string {
   if (!Number.isFinite(v)) return String(v);
   return Math.abs(v) >= 100 ? v.toFixed(0) : String(Number(v.toPrecision(3)));
 }

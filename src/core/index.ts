@@ -8,7 +8,8 @@
  */
 import { footprintGeoJSON } from "../geo/geojson.ts";
 import { CAUTION, MODEL_VERSION } from "./caution.ts";
-import { estimateLocal } from "./estimate.ts";
+import { solveLocal } from "./estimate.ts";
+import { addSpread } from "./spread.ts";
 import type { EstimateOutput, Scenario } from "./types.ts";
 
 export { CAUTION, MODEL_VERSION } from "./caution.ts";
@@ -49,7 +50,8 @@ export function estimate(
   scenario: Scenario | unknown,
   options: EstimateOptions = {},
 ): EstimateOutput {
-  const out = estimateLocal(scenario, { spread: options.spread !== false });
+  const { out, prep, solutions } = solveLocal(scenario);
+  if (options.spread !== false) addSpread(out, prep, solutions);
   const source = (scenario as Scenario).source;
   if (source && options.geojson !== false) {
     out.geojson = footprintGeoJSON({

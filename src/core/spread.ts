@@ -7,11 +7,12 @@
  * Pure: no DOM, no storage, no clock.
  */
 import { envelopeRing } from "./envelope.ts";
-import type { Prepared } from "./estimate.ts";
+import { fmt, type Prepared, warn } from "./estimate.ts";
 import { type BandSolution, solveBand } from "./footprint.ts";
 import { plumeCache, setupFor } from "./setup.ts";
 import type {
   BandSpread,
+  EstimateOutput,
   LocalRing,
   SpreadSummary,
   SpreadVariant,
@@ -135,4 +136,29 @@ function bandSpread(variants: readonly SolvedVariant[], i: number): BandSpread {
     reach_max_variant: maxV,
     widest_variant: wideV,
   };
+}
+
+/**
+ * Adds the spread to `out` (from `solveLocal`): each band's figures and envelope, the summary,
+ * and the calm warning of a weather whose wind is clamped when the estimate's own is not.
+ */
+export function addSpread(out: EstimateOutput, prep: Prepared, solutions: BandSolution[]): void {
+  const spread = solveSpread(prep, solutions);
+  out.bands.forEach((b, i) => {
+    b.spread = spread.bands[i];
+  });
+  out.footprint.bands.forEach((lb, i) => {
+    lb.envelope = spread.envelopes[i] ?? [];
+  });
+  out.spread = spread.summary;
+  const calm = spread.variants.filter((v) => v.calm).map((v) => v.variant);
+  if (calm.length > 0 && !out.warnings.some((w) => w.code === "calm-wind")) {
+    const which = calm.map((v) => `class ${v.stability} at ${fmt(v.wind_speed_m_s)} m/s`);
+    warn(
+      out.warnings,
+      "spread-calm-wind",
+      `Spread: with ${which.join(", ")} the wind at release height is under 1 m/s; those ` +
+        "weathers are computed with 1 m/s, but a Gaussian plume does not describe calms.",
+    );
+  }
 }
