@@ -25,8 +25,10 @@ import {
   CENTRELINE_STYLE,
   NEAR_ZONE_STYLE,
   SOURCE_COLOUR,
-  SPREAD_STYLE,
 } from "./palette.ts";
+
+/** The spread's envelope: the band's colour, unfilled, thinner (simplestyle has no dash). */
+const SPREAD_STYLE = { "stroke-width": 1, "stroke-opacity": 0.6, "fill-opacity": 0 } as const;
 
 // WGS 84 ellipsoid (NIMA TR8350.2, 2000): semi-major axis (m) and flattening.
 const WGS84_A = 6378137;

@@ -247,7 +247,8 @@ describe("calm and validation", () => {
   };
   it.each([
     [{ classes: 2 }, "spread.classes", /0 .*or 1/],
-    [{ classes: "1" }, "spread.classes", /without quotes/],
+    [{ classes: 0.5 }, "spread.classes", /0 .*or 1/],
+    [{ classes: "1" }, "spread.classes", /0 .*or 1/],
     [{ wind_factor: 0.5 }, "spread.wind_factor", /from 1 to 3/],
     [{ wind_factor: Number.NaN }, "spread.wind_factor", /finite/],
     [{ wind: 1.3 }, "spread.wind", /not a known field/],

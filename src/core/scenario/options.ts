@@ -87,36 +87,22 @@ export function readLimitSet(rd: Reader, raw: Obj): ParsedScenario["limitSet"] |
 }
 
 /**
- * `spread`: classes stepped each way (0 or 1) and the wind factor (1 to 3); model.md's
- * neighbouring classes × wind ±30% by default, `{ classes: 0, wind_factor: 1 }` = off.
+ * `spread`: classes stepped each way (0 or 1) and the wind factor (1 to 3); neighbouring classes
+ * × wind ±30% by default, `{ classes: 0, wind_factor: 1 }` = off.
  */
 export function readSpread(rd: Reader, raw: Obj): ParsedScenario["spread"] | undefined {
-  const spread: ParsedScenario["spread"] = {
-    classes: DEFAULTS.spread_classes,
-    windFactor: DEFAULTS.spread_wind_factor,
-  };
-  if (raw.spread === undefined) return spread;
-  const sp = rd.object(raw, "spread", "", false, 'e.g. {"classes": 1, "wind_factor": 1.3}');
+  const sp =
+    raw.spread === undefined ? {} : rd.object(raw, "spread", "", false, "classes, wind_factor");
   if (!sp) return undefined;
   rd.unknownKeys(sp, "spread", KEYS.spread);
-  let ok = true;
-  if (sp.classes !== undefined) {
-    if (sp.classes === 0 || sp.classes === 1) spread.classes = sp.classes;
-    else {
-      const hint =
-        typeof sp.classes === "string" ? " (write it as a JSON number, without quotes)" : "";
-      rd.add(
-        "spread.classes",
-        sp.classes,
-        `must be 0 (this stability class only) or 1 (also one class less and one more stable)${hint}`,
-      );
-      ok = false;
-    }
-  }
-  if (sp.wind_factor !== undefined) {
-    const f = rd.number(sp, "wind_factor", "spread", RANGES.spread_wind_factor, false);
-    if (f === undefined) ok = false;
-    else spread.windFactor = f;
-  }
-  return ok ? spread : undefined;
+  const c = sp.classes;
+  const classes =
+    c === undefined || c === 0 || c === 1 ? (c ?? DEFAULTS.spread_classes) : undefined;
+  if (classes === undefined)
+    rd.add("spread.classes", c, "must be 0 (this class only) or 1 (a class either side)");
+  const windFactor =
+    sp.wind_factor === undefined
+      ? DEFAULTS.spread_wind_factor
+      : rd.number(sp, "wind_factor", "spread", RANGES.spread_wind_factor, false);
+  return classes === undefined || windFactor === undefined ? undefined : { classes, windFactor };
 }
