@@ -4,7 +4,7 @@
  * estimate's own band; off (`classes: 0, wind_factor: 1`) it is the band itself; a ground
  * release reaches farther as the air gets more stable (D → E → F; Pasquill 1961, the curves'
  * ordering, common practice); the envelope contains every variant's swept band; every variant's
- * reach lies within [reach_min_m, reach_max_m] (fast-check, fixed seed); the calm warning; the
+ * reach lies within [reach_min_m, reach_max_m] (fast-check, the suite's fixed seed); the calm warning; the
  * scenario field's validation; the GeoJSON features.
  */
 import fc from "fast-check";
@@ -15,9 +15,8 @@ import { estimate, prepare, ScenarioError } from "../../src/core/index.ts";
 import { ringArea } from "../../src/core/numeric.ts";
 import { solveSpread, spreadClasses, spreadWinds } from "../../src/core/spread.ts";
 import type { Scenario, StabilityClass } from "../../src/core/types.ts";
+import { runs, timeout } from "../support/fast-check.ts";
 import { pointsOutside } from "./rings.ts";
-
-const SEED = 20261;
 
 const base: Scenario = {
   release: { kind: "continuous", rate_g_s: 500, duration_s: 900, height_m: 2 },
@@ -180,48 +179,52 @@ describe("the envelope contains every variant's swept band", () => {
 });
 
 describe("every variant's reach lies within [reach_min_m, reach_max_m]", () => {
-  it("fast-check over weather, release and limit (fixed seed)", () => {
-    fc.assert(
-      fc.property(
-        fc.constantFrom<StabilityClass>("A", "B", "C", "D", "E", "F"),
-        fc.double({ min: 0.5, max: 15, noNaN: true }),
-        fc.double({ min: 1, max: 2, noNaN: true }),
-        fc.double({ min: 0, max: 30, noNaN: true }),
-        fc.double({ min: -1, max: 3, noNaN: true }),
-        (stability, u, factor, height, logLimit) => {
-          const s: Scenario = {
-            release: { kind: "continuous", rate_g_s: 500, height_m: height },
-            weather: { wind_speed_m_s: u, wind_from_deg: 0, stability },
-            limits: [
-              { label: "L (invented)", value: 10 ** logLimit, unit: "mg/m3", averaging_s: 600 },
-            ],
-            spread: { classes: 1, wind_factor: factor },
-          };
-          const o = estimate(s);
-          const sp = o.bands[0]?.spread;
-          if (!sp || !o.spread) throw new Error("no spread");
-          for (const c of o.spread.classes) {
-            for (const w of o.spread.wind_speeds_m_s) {
-              const v = estimate(
-                withWeather(
-                  s,
-                  { stability: c, wind_speed_m_s: w },
-                  { spread: { classes: 0, wind_factor: 1 } },
-                ),
-              ).bands[0]?.reach_m as number | null;
-              if (v === null) {
-                expect(sp.reach_min_m).toBeNull();
-                continue;
+  it(
+    "fast-check over weather, release and limit (fixed seed)",
+    () => {
+      fc.assert(
+        fc.property(
+          fc.constantFrom<StabilityClass>("A", "B", "C", "D", "E", "F"),
+          fc.double({ min: 0.5, max: 15, noNaN: true }),
+          fc.double({ min: 1, max: 2, noNaN: true }),
+          fc.double({ min: 0, max: 30, noNaN: true }),
+          fc.double({ min: -1, max: 3, noNaN: true }),
+          (stability, u, factor, height, logLimit) => {
+            const s: Scenario = {
+              release: { kind: "continuous", rate_g_s: 500, height_m: height },
+              weather: { wind_speed_m_s: u, wind_from_deg: 0, stability },
+              limits: [
+                { label: "L (invented)", value: 10 ** logLimit, unit: "mg/m3", averaging_s: 600 },
+              ],
+              spread: { classes: 1, wind_factor: factor },
+            };
+            const o = estimate(s);
+            const sp = o.bands[0]?.spread;
+            if (!sp || !o.spread) throw new Error("no spread");
+            for (const c of o.spread.classes) {
+              for (const w of o.spread.wind_speeds_m_s) {
+                const v = estimate(
+                  withWeather(
+                    s,
+                    { stability: c, wind_speed_m_s: w },
+                    { spread: { classes: 0, wind_factor: 1 } },
+                  ),
+                ).bands[0]?.reach_m as number | null;
+                if (v === null) {
+                  expect(sp.reach_min_m).toBeNull();
+                  continue;
+                }
+                if (sp.reach_min_m !== null) expect(v).toBeGreaterThanOrEqual(sp.reach_min_m);
+                expect(v).toBeLessThanOrEqual(sp.reach_max_m as number);
               }
-              if (sp.reach_min_m !== null) expect(v).toBeGreaterThanOrEqual(sp.reach_min_m);
-              expect(v).toBeLessThanOrEqual(sp.reach_max_m as number);
             }
-          }
-        },
-      ),
-      { numRuns: 60, seed: SEED },
-    );
-  }, 120_000);
+          },
+        ),
+        runs(60),
+      );
+    },
+    timeout(120_000),
+  );
 });
 
 describe("calm and validation", () => {

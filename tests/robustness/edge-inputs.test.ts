@@ -164,7 +164,7 @@ describe("limits", () => {
     for (let i = 1; i < reaches.length; i++) {
       expect(reaches[i] as number).toBeLessThanOrEqual(reaches[i - 1] as number);
     }
-  });
+  }, 60_000); // with the spread: 50 bands under 9 weathers
 });
 
 /**
