@@ -39,6 +39,7 @@ import { runCheck } from "./validation/check.ts";
 import { PrairieGrassDataError, readPrairieGrass } from "./validation/prairie-grass.ts";
 import { aboutModule, figuresJson, formatTable, SCHEME_TITLES } from "./validation/report.ts";
 import { scatterSvg } from "./validation/scatter-svg.ts";
+import { formatCoverage } from "./validation/spread-coverage.ts";
 
 const REPO_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const DEFAULT_SVG = path.join(REPO_ROOT, "tests/output/prairie-grass-scatter.svg");
@@ -111,6 +112,7 @@ function main(): number {
     return 1;
   }
   process.stdout.write(formatTable(result));
+  process.stdout.write(formatCoverage(result));
 
   const svg = scatterSvg(
     (["briggs", "pasquill-gifford"] as const).map((s) => ({

@@ -22,6 +22,7 @@ import {
   type PrairieGrassData,
   PrairieGrassDataError,
 } from "./prairie-grass.ts";
+import { spreadRange } from "./spread-coverage.ts";
 
 /** The part of `estimate()` the check uses. */
 export type Estimator = (scenario: Scenario) => { points: { concentration_mg_m3: number }[] };
@@ -38,6 +39,8 @@ export interface ComparedArc {
   sigma_theta_deg: number;
   observed_mg_m3: number;
   predicted_mg_m3: Record<SigmaScheme, number>;
+  /** The spread's concentration range [min, max] (mg/m³) at the arc (spread-coverage.ts). */
+  spread_mg_m3: Record<SigmaScheme, [number, number]>;
 }
 
 export interface ExcludedArc {
@@ -133,12 +136,15 @@ export function runCheck(data: PrairieGrassData, estimate: Estimator): CheckResu
     arcsConsidered += maxima.length;
     const distances = arcs.map((a) => a.distance_m);
     const predicted = new Map<SigmaScheme, number[]>();
+    const spread = new Map<SigmaScheme, [number, number][]>();
     for (const scheme of SCHEMES) {
-      const out = estimate(scenarioFor(run, met.wind_from_deg, stability, scheme, distances));
+      const scenario = scenarioFor(run, met.wind_from_deg, stability, scheme, distances);
+      const out = estimate(scenario);
       predicted.set(
         scheme,
         out.points.map((p) => p.concentration_mg_m3),
       );
+      spread.set(scheme, spreadRange(scenario, estimate));
     }
     maxima.forEach((m, j) => {
       if (m.status !== "ok" || m.corrected_max_mg_m3 === null) {
@@ -150,6 +156,7 @@ export function runCheck(data: PrairieGrassData, estimate: Estimator): CheckResu
         return;
       }
       const cp = {} as Record<SigmaScheme, number>;
+      const sp = {} as Record<SigmaScheme, [number, number]>;
       for (const scheme of SCHEMES) {
         const v = predicted.get(scheme)?.[j];
         if (v === undefined || !Number.isFinite(v) || v <= 0) {
@@ -158,6 +165,7 @@ export function runCheck(data: PrairieGrassData, estimate: Estimator): CheckResu
           );
         }
         cp[scheme] = v;
+        sp[scheme] = spread.get(scheme)?.[j] ?? [v, v];
       }
       compared.push({
         experiment: m.experiment,
@@ -166,6 +174,7 @@ export function runCheck(data: PrairieGrassData, estimate: Estimator): CheckResu
         sigma_theta_deg: met.sigma_theta_deg,
         observed_mg_m3: m.corrected_max_mg_m3,
         predicted_mg_m3: cp,
+        spread_mg_m3: sp,
       });
     });
   }

@@ -96,14 +96,18 @@ describe("runCheck with a stand-in estimator", () => {
   it("builds the scenario the issue fixes, once per run and scheme", () => {
     const seen: Scenario[] = [];
     runCheck(data(), scaled(data(), 1, seen));
-    expect(seen).toHaveLength(4);
-    expect(seen.map((s) => [s.sigma_scheme, s.weather.stability])).toEqual([
+    // The spread's weathers come on top: 9 for class D, 6 for class A (clamped), per scheme.
+    const variants = seen.filter((s) => s.spread !== undefined);
+    expect(variants).toHaveLength(2 * 9 + 2 * 6);
+    const main = seen.filter((s) => s.spread === undefined);
+    expect(main).toHaveLength(4);
+    expect(main.map((s) => [s.sigma_scheme, s.weather.stability])).toEqual([
       ["briggs", "D"],
       ["pasquill-gifford", "D"],
       ["briggs", "A"],
       ["pasquill-gifford", "A"],
     ]);
-    const s = seen[0] as Scenario;
+    const s = main[0] as Scenario;
     expect(s.release).toEqual({ kind: "continuous", rate_g_s: 80, height_m: 0.46 });
     expect(s.weather).toMatchObject({ wind_speed_m_s: 5.93, wind_height_m: 2, terrain: "open" });
     expect(s.weather.mixing_height_m).toBeUndefined();
