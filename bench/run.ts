@@ -14,6 +14,7 @@ import { bundleReport, DIST, FIRST_SCREEN_JS_GZIP_BUDGET, REPO } from "./bundle.
 import { limitSetBench } from "./limit-sets.ts";
 import { type MapResults, mapBench } from "./map.ts";
 import { compare, compareCases, solveTimings } from "./solve.ts";
+import { spreadBench } from "./spread.ts";
 
 const args = new Set(process.argv.slice(2));
 const quick = args.has("--quick");
@@ -59,6 +60,19 @@ async function main() {
   }
   const all = solve.map((r) => r.estimate.p95_ms);
   console.log(`worst p95 ${ms(Math.max(...all))} ms`);
+
+  // --- spread and the analytic floor -----------------------------------------------------------
+  const spread = spreadBench(runs);
+  console.log(`\nspread (3 limits, ongoing, open, swing 20°; ${runs} runs, ms)`);
+  for (const [label, v] of [
+    ["plain solve (spread: false)", spread.plain_swing20],
+    ["with the spread (9 weathers + envelopes)", spread.spread_swing20],
+    ["plain 3-limit solve, no swing", spread.plain_3_limits],
+    ["bare analytic floor (scan + root + 129-station profile)", spread.floor_3_limits],
+  ] as const) {
+    console.log(`  ${label.padEnd(54)} median ${ms(v.median_ms).padStart(7)}  p95 ${ms(v.p95_ms)}`);
+  }
+  console.log(`  plain / floor (medians): ${spread.plain_over_floor.toFixed(2)}×`);
 
   // --- analytic against brute force ----------------------------------------------------------
   console.log("\nanalytic band vs brute force (400×400 grid + marching squares, d3-contour)");
@@ -150,6 +164,7 @@ async function main() {
     machine: m,
     quick,
     footprint_solve: solve,
+    spread,
     analytic_vs_brute_force: cmp,
     limit_sets_import: sets,
     bundle: {

@@ -95,12 +95,14 @@ export function allCases(): Case[] {
   return out;
 }
 
-/** estimate() as the app's live update calls it (no GeoJSON), per case. */
+/** estimate() as the app's first answer calls it (no GeoJSON, no spread), per case. */
 export function solveTimings(runs: number) {
   return allCases().map((c) => {
     const s = caseScenario(c);
-    const st = stats(time(() => estimate(s, { geojson: false }), runs));
-    const withGeo = stats(time(() => estimate(s), Math.max(5, Math.round(runs / 4))));
+    const st = stats(time(() => estimate(s, { geojson: false, spread: false }), runs));
+    const withGeo = stats(
+      time(() => estimate(s, { spread: false }), Math.max(5, Math.round(runs / 4))),
+    );
     return { case: c, estimate: st, estimate_with_geojson: withGeo };
   });
 }
