@@ -41,5 +41,7 @@ describe("the estimate sheet's inputs and places", () => {
       if (above === 0) expect(text).toContain("below every limit");
     });
     expect(rows[0]?.label).toBe("Place 1: 1 km downwind");
+    const named = placeRows([{ ...out.points[0], name: "School (invented)" } as never], "metric");
+    expect(named[0]?.label).toBe("School (invented): 1 km downwind");
   });
 });

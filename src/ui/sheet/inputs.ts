@@ -98,8 +98,10 @@ export function placeRows(points: readonly PointOutput[], system: UnitSystem): S
         (l) =>
           `above ${l.label} from ${formatDuration(l.arrives_s ?? 0, "down")}${l.clears_s === null ? "" : ` to ${formatDuration(l.clears_s, "up")}`}`,
       );
+    // A place's name, when the point carries one (places to check are named by the user).
+    const name = (p as PointOutput & { name?: string }).name;
     return {
-      label: `Place ${i + 1}: ${formatDistance(p.x_m, system)} downwind${across}`,
+      label: `${name ? name : `Place ${i + 1}`}: ${formatDistance(p.x_m, system)} downwind${across}`,
       value: `${formatConcentration(p.concentration_mg_m3)}; ${over.length > 0 ? over.join("; ") : "below every limit"}`,
     };
   });
