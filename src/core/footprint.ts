@@ -161,22 +161,8 @@ export function solveBand(plume: Plume, limit: number, zr: number, swingDeg: num
   }
   const outline = outlineRing(ox, ow);
   const alpha = (Math.abs(swingDeg) * Math.PI) / 180;
-  let swept = outline;
-  if (alpha > 0) {
-    // The gaps' edges are zeros of w: profile nodes there, so the profile's bound sees each edge.
-    const nodes: [number, number][] = Array.from(xs, (x, i) => [x, ws[i] as number]);
-    for (let k = 0; k < intervals.length; k++) {
-      const [a, b] = intervals[k] as [number, number];
-      if (k > 0) nodes.push([a, 0]);
-      if (k < intervals.length - 1) nodes.push([b, 0]);
-    }
-    nodes.sort((p, q) => p[0] - q[0]);
-    swept = sweptRing(
-      nodes.map((p) => p[0]),
-      nodes.map((p) => p[1]),
-      alpha,
-    );
-  }
+  // Nodes inside a gap have w = 0, so the profile's bound closes each gap's edge conservatively.
+  const swept = alpha > 0 ? sweptRing(Array.from(xs), Array.from(ws), alpha) : outline;
   let maxY = 0;
   let maxYAt = maxAt;
   for (const p of swept) {
@@ -232,64 +218,51 @@ export function outwardProfile(
   ws: readonly number[],
 ): { xs: number[]; ws: number[] } {
   const n = xs.length;
+  const X = (i: number) => xs[i] as number;
+  const W = (i: number) => ws[i] as number;
+  const slope = (i: number) => (W(i + 1) - W(i)) / (X(i + 1) - X(i));
   const ox: number[] = [];
   const ow: number[] = [];
-  const at = (i: number): [number, number] => [xs[i] as number, ws[i] as number];
   for (let i = 0; i < n; i++) {
-    const [x0, w0] = at(i);
+    const x0 = X(i);
+    const w0 = W(i);
     ox.push(x0);
     ow.push(w0);
-    if (i === n - 1) break;
-    const [x1, w1] = at(i + 1);
-    if (!(x1 > x0) || (w0 === 0 && w1 === 0)) continue;
-    const sc = (w1 - w0) / (x1 - x0);
-    // Neighbouring secants, unless the segment starts or ends a stretch of zero width.
-    let sp: number | null = null;
-    let sn: number | null = null;
-    if (i >= 1 && w0 > 0) {
-      const [xp, wp] = at(i - 1);
-      if (x0 > xp) sp = (w0 - wp) / (x0 - xp);
+    const x1 = X(i + 1);
+    if (!(x1 > x0)) continue;
+    // The neighbouring secants (none at a band end or the edge of a gap) and their corner;
+    // with one missing, a vertical edge at that end of the segment.
+    const sp = i > 0 && w0 > 0 ? slope(i - 1) : undefined;
+    const sn = i < n - 2 && W(i + 1) > 0 ? slope(i + 1) : undefined;
+    let xc = x0;
+    let wc = sn === undefined ? 0 : W(i + 1) - sn * (x1 - x0);
+    if (sp !== undefined) {
+      xc = sn === undefined ? x1 : (W(i + 1) - w0 + sp * x0 - sn * x1) / (sp - sn);
+      wc = w0 + sp * (xc - x0);
     }
-    if (i + 2 <= n - 1 && w1 > 0) {
-      const [xn, wn] = at(i + 2);
-      if (xn > x1) sn = (wn - w1) / (xn - x1);
-    }
-    if (sp !== null && sn !== null) {
-      if (sp > sc && sc > sn) {
-        const xc = (w1 - w0 + sp * x0 - sn * x1) / (sp - sn);
-        if (xc > x0 && xc < x1) {
-          ox.push(xc);
-          ow.push(w0 + sp * (xc - x0));
-        }
-      }
-    } else if (sn !== null) {
-      if (sc > sn) {
-        ox.push(x0);
-        ow.push(w1 - sn * (x1 - x0));
-      }
-    } else if (sp !== null) {
-      if (sp > sc) {
-        ox.push(x1);
-        ow.push(w0 + sp * (x1 - x0));
-      }
+    if (xc >= x0 && xc <= x1 && wc > w0 + slope(i) * (xc - x0)) {
+      ox.push(xc);
+      ow.push(wc);
     }
   }
   return { xs: ox, ws: ow };
 }
 
 /**
- * The band swept through every rotation in [−α, α] (α in radians), built exactly in polar form:
- * at radius r the band spans angles θ₁(r) ≤ |θ| ≤ θ₂(r) (θ₁ = 0 while the axis point (r, 0) is
- * in the band); the swept band spans max(θ₁ − α, 0) ≤ |θ| ≤ θ₂ + α. Where the band at one radius
- * splits into several arcs, the envelope [θ₁, θ₂] is used (conservative: covers every arc).
+ * The band swept through every rotation in [−α, α] (α in radians), built exactly in polar form
+ * (model.md): at radius r the band spans angles θ₁(r) ≤ |θ| ≤ θ₂(r) (θ₁ = 0 while the axis point
+ * (r, 0) is in the band); the swept band spans max(θ₁ − α, 0) ≤ |θ| ≤ θ₂ + α. Where the band at
+ * one radius splits into several arcs, the envelope [θ₁, θ₂] is used (conservative).
  * Input: the upper half-width profile, x ascending from start to reach, w ≥ 0.
  *
- * The ring contains the swept band (errs outward): the profile is first made an upper bound
- * (`outwardProfile`); every vertex radius is a sample radius, so between two samples the outer
- * edge is one profile edge turned by α and the ring's chord is that edge itself; where the
- * running maximum of the radius has a dip (θ₂ jumps) the arc at that radius is drawn; arcs on the
- * outside are drawn circumscribed (every chord tangent to the circle); the notch beyond the reach
- * closes where the turned edge crosses the axis.
+ * On a piecewise-linear profile θ₂(r) + α is traced by the profile's edges turned by α, taken
+ * where the radius ρ = √(x² + w²) reaches a new maximum going out from the start, with an arc
+ * at that radius across each dip of ρ; θ₁(r) − α beyond the reach likewise by the edges turned
+ * by −α where ρ reaches a new maximum coming back from the tip (the notch), until they cross the
+ * axis. The ring contains the swept band (errs outward): the profile is first made an upper bound
+ * (`outwardProfile`), arcs on the outside are drawn circumscribed (every chord tangent to the
+ * circle), and where an edge is cut at a radius the cut is placed on the circle at the edge's
+ * x interpolated in ρ (ρ is convex along a line, so that angle is not below the edge's).
  */
 export function sweptRing(
   xsIn: readonly number[],
@@ -298,153 +271,85 @@ export function sweptRing(
 ): LocalRing {
   const { xs, ws } = outwardProfile(xsIn, wsIn);
   const n = xs.length;
-  const rho = xs.map((x, i) => Math.hypot(x, ws[i] as number));
-  const start = xs[0] as number;
-  const reach = xs[n - 1] as number;
-  let rMax = 0;
-  for (const r of rho) if (r > rMax) rMax = r;
-  const rMin = start;
-
-  // Radii: every vertex's ρ, and the start and the reach.
-  const radii = new Set<number>(rho);
-  radii.add(start);
-  radii.add(reach);
-  const rs = [...radii].filter((r) => r >= rMin && r <= rMax).sort((a, b) => a - b);
-
-  // θ₂(r): from the smallest x' with ρ(x') ≥ r (or > r: the far side of a dip); θ₁(r): from the
-  // largest x' ≤ min(r, reach) with ρ(x') ≥ r. Prefix / suffix maxima of ρ make both a binary
-  // search. Interpolating x linearly in ρ along an edge errs outward: ρ is convex along a line.
-  const pre = new Float64Array(n);
-  const suf = new Float64Array(n);
-  for (let i = 0; i < n; i++)
-    pre[i] = Math.max(i > 0 ? (pre[i - 1] as number) : 0, rho[i] as number);
-  for (let i = n - 1; i >= 0; i--)
-    suf[i] = Math.max(i < n - 1 ? (suf[i + 1] as number) : 0, rho[i] as number);
-  const xLow = (r: number, strict: boolean): number | null => {
-    const reached = (v: number) => (strict ? v > r : v >= r);
-    if (reached(rho[0] as number)) return start;
-    if (!reached(pre[n - 1] as number)) return null;
-    let lo = 0; // pre[lo] has not reached r
-    let hi = n - 1; // pre[hi] has
-    while (hi - lo > 1) {
-      const mid = (lo + hi) >> 1;
-      if (reached(pre[mid] as number)) hi = mid;
-      else lo = mid;
-    }
-    const r0 = rho[hi - 1] as number;
-    const r1 = rho[hi] as number;
-    return lerp(xs[hi - 1] as number, xs[hi] as number, Math.max(0, (r - r0) / (r1 - r0)));
-  };
-  const xHigh = (r: number): number | null => {
-    if (r <= reach) return r;
-    if ((suf[0] as number) < r) return null;
-    let lo = 0; // suf[lo] >= r
-    let hi = n - 1; // suf[hi] < r (rho at the tip is the reach, below r)
-    while (hi - lo > 1) {
-      const mid = (lo + hi) >> 1;
-      if ((suf[mid] as number) >= r) lo = mid;
-      else hi = mid;
-    }
-    const r0 = rho[lo] as number;
-    const r1 = rho[hi] as number;
-    return lerp(xs[lo] as number, xs[hi] as number, (r0 - r) / (r0 - r1));
-  };
-  const acosSafe = (v: number) => Math.acos(Math.max(-1, Math.min(1, v)));
+  const X = (i: number) => xs[i] as number;
+  const W = (i: number) => ws[i] as number;
+  const R = (i: number) => Math.hypot(X(i), W(i));
+  const ang = (i: number) => Math.atan2(W(i), X(i));
   const pt = (r: number, th: number): [number, number] => [r * Math.cos(th), r * Math.sin(th)];
-  /** Arc of radius r from angle `from` to `to` (excluding both ends), outside the circle. */
-  const arcOutside = (r: number, from: number, to: number): [number, number][] => {
-    const steps = Math.max(1, Math.ceil(Math.abs(to - from) / (Math.PI / 180)));
-    const d = (to - from) / steps;
-    const rc = r / Math.cos(d / 2);
-    const out: [number, number][] = [];
-    for (let k = 0; k < steps; k++) out.push(pt(rc, from + d * (k + 0.5)));
-    return out;
+  /** Angle of the point at radius r on edge (i, j), x interpolated in ρ. */
+  const cut = (i: number, j: number, r: number) =>
+    Math.acos(Math.min(1, (X(i) + ((X(j) - X(i)) * (r - R(i))) / (R(j) - R(i))) / r));
+  /**
+   * Arc of radius r from angle a to b, both ends excluded, in steps d of at most 1°: circumscribed
+   * (h = ½: vertices at r / cos(d/2), every chord tangent to the circle) or inscribed (h = 0).
+   */
+  const arc = (out: LocalRing, r: number, a: number, b: number, h = 0.5) => {
+    const steps = Math.max(1, Math.ceil(Math.abs(b - a) / (Math.PI / 180)));
+    const d = (b - a) / steps;
+    for (let k = h ? 0 : 1; k < steps; k++) out.push(pt(r / Math.cos(d * h), a + d * (k + h)));
   };
 
-  // Upper half of the outer edge, from the start outward: points [x, y] (the lower half mirrors).
-  const outer: [number, number][] = [];
-  // Inner edge beyond the reach: [r, θ₁ − α] (signed: negative where the axis is covered).
-  const inner: [number, number][] = [];
-  for (const r of rs) {
-    const lo = xLow(r, false);
-    const hi = xHigh(r);
-    if (lo === null || hi === null) continue;
-    const th2 = acosSafe(lo / r);
-    outer.push(pt(r, Math.min(Math.PI, th2 + alpha)));
-    const loFar = r < rMax ? xLow(r, true) : null;
-    if (loFar !== null) {
-      const th2Far = acosSafe(loFar / r);
-      if (th2Far < th2 - 1e-12) {
-        // A dip in ρ: θ₂ drops at this radius; the swept edge follows the arc down to it.
-        outer.push(
-          ...arcOutside(r, Math.min(Math.PI, th2 + alpha), Math.min(Math.PI, th2Far + alpha)),
-        );
-        outer.push(pt(r, Math.min(Math.PI, th2Far + alpha)));
-      }
+  // Upper outer edge, from the start out to the farthest vertex `top`, turned by +α.
+  const upper: LocalRing = [pt(R(0), ang(0) + alpha)];
+  let top = 0;
+  for (let i = 1; i < n; i++) {
+    if (R(i) <= R(top)) continue;
+    if (top !== i - 1) {
+      const th = cut(i - 1, i, R(top)) + alpha;
+      arc(upper, R(top), ang(top) + alpha, th);
+      upper.push(pt(R(top), th));
     }
-    inner.push([r, Math.min(acosSafe(hi / r), th2) - alpha]);
+    upper.push(pt(R(i), ang(i) + alpha));
+    top = i;
   }
-  if (outer.length === 0) return [];
-  const thOut = (q: [number, number]) => Math.atan2(q[1], q[0]);
+  const rOut = R(top);
+  const thOut = ang(top) + alpha;
 
-  const ring: LocalRing = [];
-  const mirror = (q: [number, number]): [number, number] => [q[0], -q[1]];
-  // Lower outer edge outward (without its last point, the far arc's start).
-  for (let k = 0; k < outer.length - 1; k++) ring.push(mirror(outer[k] as [number, number]));
-  const last = outer[outer.length - 1] as [number, number];
-  const thOutLast = thOut(last);
-  const rOut = rMax;
-  // The notch beyond the reach: the contiguous run of radii from the outside in with θ₁ − α > 0.
-  let kNotch = inner.length;
-  while (kNotch > 0 && (inner[kNotch - 1] as [number, number])[1] > 0) kNotch--;
-  ring.push(mirror(last));
-  if (kNotch < inner.length) {
-    const thInLast = (inner[inner.length - 1] as [number, number])[1];
-    ring.push(...arcOutside(rOut, -thOutLast, -thInLast));
-    for (let k = inner.length - 1; k >= kNotch; k--) {
-      const [r, th] = inner[k] as [number, number];
-      ring.push(pt(r, -th));
+  // The notch: from `top` toward the tip, the vertices where ρ is the largest of all beyond them,
+  // turned by −α, while above the axis; then where that edge crosses the axis.
+  const notch: LocalRing = [];
+  let last = top;
+  let thLast = ang(top) - alpha;
+  if (thLast > 0) {
+    const records = [n - 1]; // the tip, on the axis
+    for (let i = n - 2; i > top; i--)
+      if (R(i) > R(records[records.length - 1] as number)) records.push(i);
+    notch.push(pt(rOut, thLast));
+    for (let k = records.length - 1; k >= 0; k--) {
+      const i = records[k] as number;
+      const th = ang(i) - alpha;
+      if (th <= 0) {
+        const [ax, ay] = pt(R(last), thLast);
+        const [bx, by] = pt(R(i), th);
+        notch.push([ax + ((bx - ax) * ay) / (ay - by), 0]);
+        break;
+      }
+      notch.push(pt(R(i), th));
+      last = i;
+      thLast = th;
     }
-    // The turned edge between the last two samples crosses the axis: the notch's inner corner.
-    const [ra, ta] = (inner[kNotch - 1] ?? inner[kNotch]) as [number, number];
-    const [rb, tb] = inner[kNotch] as [number, number];
-    const [ax, ay] = pt(ra, ta);
-    const [bx, by] = pt(rb, tb);
-    const xAxis = by - ay !== 0 && ta < 0 ? ax + ((bx - ax) * (0 - ay)) / (by - ay) : rb;
-    ring.push([Math.min(xAxis, rb), 0]);
-    for (let k = kNotch; k < inner.length; k++) {
-      const [r, th] = inner[k] as [number, number];
-      ring.push(pt(r, th));
-    }
-    ring.push(...arcOutside(rOut, thInLast, thOutLast));
-  } else {
-    ring.push(...arcOutside(rOut, -thOutLast, thOutLast));
   }
-  // Upper outer edge inward, then the arc at the near end back to the start (its chords lie
-  // inside the circle r = start, i.e. outside the band: erring outward).
-  for (let k = outer.length - 1; k >= 1; k--) ring.push(outer[k] as [number, number]);
-  const first = outer[0] as [number, number];
-  const r0 = Math.hypot(first[0], first[1]);
-  const th0 = thOut(first);
-  const steps = Math.max(1, Math.ceil((2 * th0) / (Math.PI / 180)));
-  for (let k = 0; k < steps; k++) ring.push(pt(r0, th0 - (2 * th0 * k) / steps));
+
+  const ring: LocalRing = upper.map(([x, y]) => [x, -y]);
+  if (notch.length > 0) {
+    arc(ring, rOut, -thOut, -(ang(top) - alpha));
+    for (const [x, y] of notch) ring.push([x, -y]);
+    ring.pop(); // the axis point is shared by both halves
+    for (let k = notch.length - 1; k >= 0; k--) ring.push(notch[k] as [number, number]);
+    arc(ring, rOut, ang(top) - alpha, thOut);
+  } else arc(ring, rOut, -thOut, thOut);
+  for (let k = upper.length - 1; k >= 0; k--) ring.push(upper[k] as [number, number]);
+  // The near end: the arc at the start, inscribed (its chords lie outside the band).
+  arc(ring, R(0), ang(0) + alpha, -ang(0) - alpha, 0);
   return dedupe(ring);
 }
 
-function lerp(a: number, b: number, t: number): number {
-  return a + (b - a) * t;
-}
-
+/** The ring without repeated points (within 1 nm), nor a last point equal to the first. */
 function dedupe(ring: LocalRing): LocalRing {
-  const out: LocalRing = [];
-  for (const p of ring) {
-    const q = out[out.length - 1];
-    if (q === undefined || Math.abs(q[0] - p[0]) > 1e-9 || Math.abs(q[1] - p[1]) > 1e-9)
-      out.push(p);
-  }
-  const a = out[0];
-  const b = out[out.length - 1];
-  if (a && b && out.length > 1 && Math.abs(a[0] - b[0]) <= 1e-9 && Math.abs(a[1] - b[1]) <= 1e-9)
+  const same = (p: [number, number], q: [number, number]) =>
+    Math.abs(p[0] - q[0]) <= 1e-9 && Math.abs(p[1] - q[1]) <= 1e-9;
+  const out = ring.filter((p, i) => i === 0 || !same(p, ring[i - 1] as [number, number]));
+  if (out.length > 1 && same(out[0] as [number, number], out[out.length - 1] as [number, number]))
     out.pop();
   return out;
 }

@@ -61,7 +61,10 @@ describe("size budget", () => {
       await b.page.goto(app.url);
       await b.page.getByTestId("band-reach-0").waitFor({ timeout: 20_000 });
       await b.page.waitForLoadState("load");
-      await b.page.waitForTimeout(1500); // let the deferred parts load, to print them
+      // Let the deferred parts load, to print them: the log section is one of them, and then
+      // the network goes quiet.
+      await b.page.getByTestId("log-count").waitFor({ timeout: 20_000 });
+      await b.page.waitForLoadState("networkidle");
       // main.tsx marks the end of the first render, during which the first estimate is computed.
       const seen = await b.page.evaluate(() => {
         const mark = performance.getEntriesByName("driftmark-first-render")[0] as

@@ -60,8 +60,9 @@ describe("LogStore", () => {
     const s = await store();
     const entries = [];
     for (let i = 0; i < 25; i++) entries.push(entryAt(T0 + Math.floor(i / 3) * 60_000, `n${i}`));
-    // Write in shuffled order: the order of the listing must come from the time, not the insertion.
-    for (const e of [...entries].sort(() => 0.5 - Math.random())) await s.add(e);
+    // Write in a scrambled but fixed order (i·7 mod 25, a permutation): the order of the listing
+    // must come from the time, not the insertion.
+    for (let i = 0; i < 25; i++) await s.add(entries[(i * 7) % 25] as (typeof entries)[number]);
     const seen: string[] = [];
     let page = await s.list({ limit: 7 });
     seen.push(...page.entries.map((e) => e.id));
