@@ -38,7 +38,7 @@ export interface ModelCheck {
 }
 
 export const MODEL_CHECK: ModelCheck = {
-  modelVersion: "driftmark-model-4",
+  modelVersion: "driftmark-model-5",
   dataset: "Project Prairie Grass, O'Neill, Nebraska, July–August 1956",
   citation:
     "Barad, M. L. (ed.) (1958). Project Prairie Grass, a Field Program in Diffusion. Geophysical Research Papers No. 59, Air Force Cambridge Research Center.",
