@@ -321,6 +321,29 @@ describe("the footprint on the map", { timeout: MAP_TIMEOUT }, () => {
     expect(sources).toEqual([{ lat: 47.0021, lon: 8.0043 }]);
   });
 
+  it("shows the device position as a dot with its accuracy circle, without moving the source", async () => {
+    const { page, context } = browser;
+    await context.grantPermissions(["geolocation"], { origin: new URL(app.url).origin });
+    await context.setGeolocation({ latitude: 47.0012, longitude: 8.0021, accuracy: 40 });
+    const lat = await page.getByLabel("Latitude", { exact: true }).inputValue();
+    await page.getByRole("button", { name: "Show my position" }).click();
+    await expect
+      .poll(
+        async () => {
+          const fc = await footprintData(page);
+          const dot = fc.features.find((f) => f.properties?.kind === "position");
+          const circle = fc.features.find((f) => f.properties?.kind === "position-accuracy");
+          return [
+            dot?.geometry.type === "Point" ? dot.geometry.coordinates : null,
+            circle?.properties?.radius_m ?? null,
+          ];
+        },
+        { timeout: 30_000 },
+      )
+      .toEqual([[8.0021, 47.0012], 40]);
+    expect(await page.getByLabel("Latitude", { exact: true }).inputValue()).toBe(lat);
+  });
+
   it("has no axe-core violations with the map and the map areas open, day and night", async () => {
     const { page } = browser;
     await openAreas(page);

@@ -113,6 +113,8 @@ export function MapView(props: MapViewProps) {
         pitchWithRotate: false,
         dragRotate: true,
         touchPitch: false,
+        // Labels appear at once (no fade): the map is idle, and read, sooner after each estimate.
+        fadeDuration: 0,
       });
     } catch (e) {
       props.onFail(e instanceof Error ? e.message : String(e));
@@ -145,6 +147,8 @@ export function MapView(props: MapViewProps) {
       if (/webgl/i.test(message)) latest.current.onFail(message);
     });
     return () => {
+      // Let go of the area's file, so that removing the area frees its storage.
+      protocol?.tiles.delete(props.areaKey);
       m.remove();
       map.current = null;
       delete (el as HTMLElement & { driftmarkMap?: MapLibreMap }).driftmarkMap;
