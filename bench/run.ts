@@ -274,9 +274,6 @@ function writeReadmeTable(r: any): void {
   rows.push(
     `| **first-screen JS** (budget ${kB(bu.budget_first_screen_js_gzip)} kB) | | ${kB(bu.firstScreen.jsGzip)} kB${bu.firstScreen.jsGzip > bu.budget_first_screen_js_gzip ? " — over budget" : ""} |`,
   );
-  // biome-ignore lint/suspicious/noExplicitAny: see above
-  for (const f of (r.map?.chunks ?? []) as any[])
-    rows.push(`| map: ${f.file} (after the first estimate) | ${kB(f.raw)} kB | ${kB(f.gzip)} kB |`);
   if (bu.serviceWorker)
     rows.push(
       `| service worker sw.js | ${kB(bu.serviceWorker.raw)} kB | ${kB(bu.serviceWorker.gzip)} kB |`,
