@@ -47,8 +47,17 @@ describe("first start", () => {
   it("writes a screenshot of the demo footprint at 360×640 for people to look at", async () => {
     const { page } = browser;
     const fp = page.getByTestId("footprint");
-    await fp.scrollIntoViewIfNeeded();
-    await fp.screenshot({ path: join(OUTPUT_DIR, "demo-footprint-360x640.png") });
+    // The parts loaded after the first estimate may replace the footprint element once: retry the
+    // scroll and screenshot on the element that is there now (a state, not a sleep).
+    for (let attempt = 1; ; attempt++) {
+      try {
+        await fp.scrollIntoViewIfNeeded({ timeout: 10_000 });
+        await fp.screenshot({ path: join(OUTPUT_DIR, "demo-footprint-360x640.png") });
+        break;
+      } catch (e) {
+        if (attempt >= 5) throw e;
+      }
+    }
     await page.screenshot({ path: join(OUTPUT_DIR, "demo-screen-360x640.png") });
     await page.screenshot({ path: join(OUTPUT_DIR, "demo-full-360.png"), fullPage: true });
     const box = await fp.boundingBox();

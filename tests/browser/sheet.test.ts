@@ -88,9 +88,19 @@ describe("the estimate sheet", () => {
       expect(reaches.length).toBe(DEMO_LIMIT_SET.limits.length);
 
       await stubPrint(page);
-      await print.click();
       const sheet = page.getByTestId("estimate-sheet");
-      await sheet.waitFor({ state: "attached" });
+      // The estimate with the chosen set may still be on its way from the worker: print until the
+      // sheet is the one of that estimate (it names the set's source note).
+      await expect
+        .poll(
+          async () => {
+            await print.click();
+            await sheet.waitFor({ state: "attached" });
+            return squash((await sheet.textContent()) ?? "");
+          },
+          { timeout: 20_000 },
+        )
+        .toContain(squash(DEMO_LIMIT_SET.source_note));
       expect(await page.locator('[data-testid^="sheet-reach-"]').allTextContents()).toEqual(
         reaches,
       );
